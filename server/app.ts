@@ -1,0 +1,133 @@
+import express, { type Express } from 'express';
+import path from 'node:path';
+import fs from 'node:fs';
+import { randomUUID } from 'node:crypto';
+import helmet from 'helmet';
+import session from 'express-session';
+import connectPgSimple from 'connect-pg-simple';
+import cookieParser from 'cookie-parser';
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import { doubleCsrf } from 'csrf-csrf';
+import { pinoHttp } from 'pino-http';
+import pg from 'pg';
+import type { Config } from './config';
+import { connectDatabase } from './db/connection';
+import { errorHandler, notFoundApi } from './middleware/error-handler';
+import { requireSignIn } from './middleware/auth';
+import { authRoutes } from './routes/auth';
+import { staffRoutes } from './routes/staff';
+import { findActiveSessionUser, verifyCredentials } from './services/auth-service';
+import type { SessionUser } from '../shared/auth/schemas';
+
+export type AppHandle = { app: Express; pool: pg.Pool };
+
+/** The middleware pipeline, top to bottom. Tests build it in-process against the real PostgreSQL. */
+export function createApp(config: Config, options: { clientDist?: string } = {}): AppHandle {
+  connectDatabase(config.databaseUrl);
+  const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
+
+  const app = express();
+  app.disable('x-powered-by');
+  if (config.trustProxy) app.set('trust proxy', config.trustProxy);
+
+  app.use(
+    pinoHttp({
+      level: config.logLevel,
+      genReqId: (req, res) => {
+        const id = randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      autoLogging: config.env !== 'test',
+      // A line per request, without headers or cookies.
+      serializers: {
+        req: (req) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res) => ({ statusCode: res.statusCode }),
+      },
+    }),
+  );
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          // Fonts, sounds and scripts are all bundled: nothing is fetched from elsewhere.
+          'default-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'media-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          // Over plain HTTP on a clinic network this directive would blank the page.
+          'upgrade-insecure-requests': config.secureCookies ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.secureCookies,
+    }),
+  );
+
+  app.use(express.json({ limit: '200kb' }));
+  app.use(cookieParser());
+
+  const PgStore = connectPgSimple(session);
+  app.use(
+    session({
+      name: 'mendstep.sid',
+      store: new PgStore({ pool, tableName: 'session', pruneSessionInterval: config.env === 'test' ? false : 15 * 60 }),
+      secret: config.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      // Each request pushes the expiry on: the cookie's age is the idle timeout.
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.secureCookies,
+        maxAge: config.sessionIdleMinutes * 60_000,
+      },
+    }),
+  );
+
+  passport.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, (email, password, done) => {
+      verifyCredentials(email, password).then((user) => done(null, user ?? false), done);
+    }),
+  );
+  passport.serializeUser((user, done) => done(null, (user as SessionUser).id));
+  passport.deserializeUser((id: string, done) => {
+    findActiveSessionUser(id).then((user) => done(null, user ?? false), done);
+  });
+  app.use(passport.session());
+
+  const { generateCsrfToken, doubleCsrfProtection } = doubleCsrf({
+    getSecret: () => config.sessionSecret,
+    getSessionIdentifier: (req) => req.session.id,
+    cookieName: config.secureCookies ? '__Host-mendstep.csrf' : 'mendstep.csrf',
+    cookieOptions: { sameSite: 'lax', secure: config.secureCookies, path: '/', httpOnly: true },
+    getCsrfTokenFromRequest: (req) => req.get('x-csrf-token'),
+  });
+
+  const api = express.Router();
+  api.use(doubleCsrfProtection);
+  api.get('/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+  api.use('/auth', authRoutes(config, generateCsrfToken));
+  api.use(requireSignIn);
+  api.use('/staff', staffRoutes());
+  api.use(notFoundApi);
+  app.use('/api', api);
+
+  const dist = options.clientDist ?? path.resolve(import.meta.dirname, '../dist');
+  if (fs.existsSync(path.join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app shell.
+    app.get('/{*splat}', (_req, res) => {
+      res.sendFile(path.join(dist, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+  return { app, pool };
+}

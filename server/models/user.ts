@@ -1,0 +1,31 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { Role } from '../../shared/auth/roles';
+
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<string>;
+  declare clinicId: string;
+  declare email: string;
+  declare name: string;
+  declare role: Role;
+  declare passwordHash: string | null;
+  declare active: CreationOptional<boolean>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    User.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        clinicId: { type: DataTypes.UUID, allowNull: false },
+        email: { type: DataTypes.STRING(254), allowNull: false },
+        name: { type: DataTypes.STRING(120), allowNull: false },
+        role: { type: DataTypes.STRING(20), allowNull: false },
+        passwordHash: { type: DataTypes.STRING(100), allowNull: true },
+        active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'users' },
+    );
+  }
+}

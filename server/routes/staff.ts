@@ -1,0 +1,24 @@
+import { Router } from 'express';
+import { idParamsSchema } from '../../shared/ids';
+import { AppError } from '../errors';
+import { currentUser, requireRole } from '../middleware/auth';
+import { parseInput } from '../middleware/validate';
+import { getStaffMember, listStaff } from '../services/staff-service';
+
+export function staffRoutes(): Router {
+  const router = Router();
+  router.use(requireRole('admin'));
+
+  router.get('/', async (req, res) => {
+    res.json({ staff: await listStaff(currentUser(req)) });
+  });
+
+  router.get('/:id', async (req, res) => {
+    const { id } = parseInput(idParamsSchema, req.params);
+    const member = await getStaffMember(currentUser(req), id);
+    if (!member) throw AppError.notFound('Staff member');
+    res.json({ member });
+  });
+
+  return router;
+}

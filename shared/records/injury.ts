@@ -1,0 +1,104 @@
+import { z } from 'zod';
+import { phaseSchema } from '../phase';
+import { bodyRegionIdSchema, sideSchema } from './body-map';
+import { boundedText, isPresent, pastInstant } from './fields';
+
+export const mechanismKinds = ['knee-to-thigh', 'ball', 'stick-or-bat', 'fall', 'collision', 'other'] as const;
+export const mechanismKindSchema = z.enum(mechanismKinds, {
+  error: `Mechanism must be one of: ${mechanismKinds.join(', ')}`,
+});
+export type MechanismKind = z.infer<typeof mechanismKindSchema>;
+
+export const haematomaTypes = ['intramuscular', 'intermuscular', 'not-known'] as const;
+export const haematomaTypeSchema = z.enum(haematomaTypes, {
+  error: `Haematoma type must be one of: ${haematomaTypes.join(', ')}`,
+});
+export type HaematomaType = z.infer<typeof haematomaTypeSchema>;
+
+export const injuryStatuses = ['open', 'closed'] as const;
+export const injuryStatusSchema = z.enum(injuryStatuses, { error: 'Status must be open or closed' });
+export type InjuryStatus = z.infer<typeof injuryStatusSchema>;
+
+/** A therapist's phase, replacing the suggested one until cleared; the reason is kept for the review desk. */
+export const phaseOverrideSchema = z.object({
+  phase: phaseSchema,
+  reason: boundedText('Override reason', 500, 5).describe('Why the suggested phase does not fit this athlete'),
+});
+export type PhaseOverride = z.infer<typeof phaseOverrideSchema>;
+
+/** Body of the endpoint that sets or clears an override; wrapped in an object since JSON parsers reject a bare null. */
+export const phaseOverrideBodySchema = z.object({
+  override: phaseOverrideSchema.nullable(),
+});
+export type PhaseOverrideBody = z.infer<typeof phaseOverrideBodySchema>;
+
+/*
+ * Whether the athlete plays football is not stored here: it is read from the athlete's sport when the
+ * injury is assessed, so correcting the sport corrects every injury's risk flags.
+ */
+const injuryFields = {
+  athleteId: z.guid({ error: 'Athlete id must be a UUID' }),
+  region: bodyRegionIdSchema,
+  side: sideSchema,
+  mechanismKind: mechanismKindSchema,
+  mechanism: boundedText('Mechanism', 500).optional().describe('How it happened, in the therapist’s words'),
+  injuredAt: pastInstant('Injury date and time'),
+  haematomaType: haematomaTypeSchema.default('not-known'),
+  previousQuadricepsInjury: z.boolean({ error: 'Previous quadriceps injury must be true or false' }).default(false),
+  kneeEffusion: z.boolean({ error: 'Knee effusion must be true or false' }).default(false),
+  treatmentStartedAt: pastInstant('Treatment start')
+    .nullable()
+    .optional()
+    .describe('When treatment began; used for the "treatment delayed more than 3 days" risk factor'),
+};
+
+type InstantPair = { injuredAt?: string; treatmentStartedAt?: string | null };
+
+function treatmentNotBeforeInjury(value: InstantPair, ctx: z.RefinementCtx): void {
+  if (isPresent(value.injuredAt) && isPresent(value.treatmentStartedAt)) {
+    if (Date.parse(value.treatmentStartedAt) < Date.parse(value.injuredAt)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['treatmentStartedAt'],
+        message: 'Treatment start cannot be before the injury',
+      });
+    }
+  }
+}
+
+export const injuryCreateSchema = z.object(injuryFields).superRefine(treatmentNotBeforeInjury);
+export type InjuryCreate = z.infer<typeof injuryCreateSchema>;
+export type InjuryCreateInput = z.input<typeof injuryCreateSchema>;
+
+/*
+ * The athlete of an injury never changes (a wrong athlete means a new injury), so athleteId is not in the
+ * update. Defaults are dropped so that an omitted field means "unchanged", not "reset to false".
+ */
+export const injuryUpdateSchema = z
+  .object({
+    region: injuryFields.region,
+    side: injuryFields.side,
+    mechanismKind: injuryFields.mechanismKind,
+    mechanism: injuryFields.mechanism,
+    injuredAt: injuryFields.injuredAt,
+    haematomaType: haematomaTypeSchema,
+    previousQuadricepsInjury: z.boolean({ error: 'Previous quadriceps injury must be true or false' }),
+    kneeEffusion: z.boolean({ error: 'Knee effusion must be true or false' }),
+    treatmentStartedAt: injuryFields.treatmentStartedAt,
+    status: injuryStatusSchema,
+    closedAt: pastInstant('Closed date and time')
+      .nullable()
+      .describe('When the athlete returned to full function; the server sets it to now when closing without one'),
+    phaseOverride: phaseOverrideSchema.nullable(),
+  })
+  .partial()
+  .superRefine((value, ctx) => {
+    treatmentNotBeforeInjury(value, ctx);
+    if (value.status === 'open' && isPresent(value.closedAt)) {
+      ctx.addIssue({ code: 'custom', path: ['closedAt'], message: 'An open injury cannot have a closed date' });
+    }
+    if (isPresent(value.closedAt) && isPresent(value.injuredAt) && Date.parse(value.closedAt) < Date.parse(value.injuredAt)) {
+      ctx.addIssue({ code: 'custom', path: ['closedAt'], message: 'Closed date cannot be before the injury' });
+    }
+  });
+export type InjuryUpdate = z.infer<typeof injuryUpdateSchema>;

@@ -1,0 +1,53 @@
+import {
+  clinicSettingDefaultSources,
+  clinicSettingsSchema,
+  clinicSettingsUpdateSchema,
+  defaultClinicSettings,
+} from '../../../shared/clinic/settings';
+import { issuesOf } from '../../support/zod-issues';
+
+describe('clinic settings', () => {
+  it('has the documented defaults', () => {
+    expect(defaultClinicSettings.wakingHours).toEqual({ start: '07:00', end: '22:00' }); // decisions.md, clinic default of ours
+    expect(defaultClinicSettings.coldProtocol).toBe('twenty-each-hour'); // common practice: 20 minutes of each hour
+    expect(defaultClinicSettings.swellingThresholdCm).toBe(1.0); // clinic default of ours; no published figure
+    expect(defaultClinicSettings.minColdIntervalMinutes).toBe(10); // decisions.md, clinic default of ours
+    expect(defaultClinicSettings.abandonAfterHours).toBe(12); // decisions.md, clinic default of ours
+  });
+
+  it('labels the source of every default and says the swelling threshold is not published', () => {
+    for (const key of Object.keys(defaultClinicSettings) as (keyof typeof defaultClinicSettings)[]) {
+      expect(clinicSettingDefaultSources[key]).toBeTruthy();
+    }
+    expect(clinicSettingDefaultSources.swellingThresholdCm).toMatch(/not a published figure/);
+  });
+
+  it('rejects a time zone that is not an IANA name', () => {
+    expect(issuesOf(clinicSettingsSchema.safeParse({ timeZone: 'CET+1' }))).toEqual([
+      { path: 'timeZone', message: 'Time zone must be an IANA name such as Europe/London' },
+    ]);
+    expect(clinicSettingsSchema.safeParse({ timeZone: 'Australia/Adelaide' }).success).toBe(true);
+  });
+
+  it('rejects waking hours that end before they start, at the end field', () => {
+    expect(issuesOf(clinicSettingsSchema.safeParse({ wakingHours: { start: '22:00', end: '07:00' } }))).toEqual([
+      { path: 'wakingHours.end', message: 'Waking hours must end after they start, on the same day' },
+    ]);
+  });
+
+  it('rejects a clock time of 24:00', () => {
+    expect(issuesOf(clinicSettingsSchema.safeParse({ wakingHours: { start: '07:00', end: '24:00' } }))[0].path).toBe('wakingHours.end');
+  });
+
+  it('rejects a swelling threshold outside 0.1 to 5 cm', () => {
+    expect(issuesOf(clinicSettingsSchema.safeParse({ swellingThresholdCm: 0 }))).toEqual([
+      { path: 'swellingThresholdCm', message: 'Swelling threshold must be between 0.1 and 5 cm' },
+    ]);
+  });
+
+  it('keeps omitted fields out of a partial update rather than resetting them to defaults', () => {
+    expect(clinicSettingsUpdateSchema.parse({ coldProtocol: 'intermittent-10-10-10' })).toEqual({
+      coldProtocol: 'intermittent-10-10-10',
+    });
+  });
+});
