@@ -1,12 +1,18 @@
 import type { Sequelize } from 'sequelize';
+import { Athlete } from './athlete';
 import { AuditEvent } from './audit-event';
 import { Clinic } from './clinic';
+import { Injury } from './injury';
+import { Measurement } from './measurement';
 import { User } from './user';
 
-export { AuditEvent, Clinic, User };
+export { Athlete, AuditEvent, Clinic, Injury, Measurement, User };
 
 export function initModels(sequelize: Sequelize) {
   Clinic.initModel(sequelize);
   User.initModel(sequelize);
   AuditEvent.initModel(sequelize);
+  Athlete.initModel(sequelize);
+  Injury.initModel(sequelize);
+  Measurement.initModel(sequelize);
 }

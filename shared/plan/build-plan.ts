@@ -1,0 +1,185 @@
+import { z } from 'zod';
+import { phaseSchema, type Phase } from '../phase';
+import { maxSequenceSteps, type Sequence } from './sequence';
+import { boundsMessage, isWithinBounds, stepKindInfo, stepKindSchema, type StepKind } from './step-kinds';
+
+/** A run's plan: the clinic's sequence for the phase, adjusted for this athlete's screening and tolerance. */
+
+export const tolerances = ['light', 'usual'] as const;
+export const toleranceSchema = z.enum(tolerances, { error: 'Tolerance must be light or usual' });
+export type Tolerance = z.infer<typeof toleranceSchema>;
+
+/*
+ * Light tolerance shortens hands-on steps to three quarters, never below the kind's minimum. A choice of ours:
+ * no source gives a dose for a tender athlete, and three quarters keeps every step recognisably the same work.
+ */
+export const lightToleranceFactor = 0.75;
+
+/** Where "swelling has increased" takes the run: cold and compression, or (cold contraindicated) out. */
+export const backToColdModes = ['cold-and-compression', 'stop-elevate-refer'] as const;
+export const backToColdModeSchema = z.enum(backToColdModes);
+export type BackToColdMode = z.infer<typeof backToColdModeSchema>;
+
+/** decisions.md: a fresh cold pack after ice massage waits the clinic's minimum interval, 10 min by default. */
+export const defaultMinColdIntervalSeconds = 600;
+
+const centimetres = (label: string) =>
+  z
+    .number({ error: `${label} must be a number of centimetres` })
+    .positive(`${label} must be more than 0 cm`)
+    .max(100, `${label} must be at most 100 cm`);
+
+/** The felt pad's size range (two to three times the injury, common practice), computed from the bruise. */
+export const padSizeSchema = z
+  .object({
+    minLengthCm: centimetres('Pad minimum length'),
+    maxLengthCm: centimetres('Pad maximum length'),
+    minWidthCm: centimetres('Pad minimum width'),
+    maxWidthCm: centimetres('Pad maximum width'),
+  })
+  .superRefine((pad, ctx) => {
+    if (pad.minLengthCm > pad.maxLengthCm) {
+      ctx.addIssue({ code: 'custom', path: ['maxLengthCm'], message: 'Pad maximum length cannot be below its minimum' });
+    }
+    if (pad.minWidthCm > pad.maxWidthCm) {
+      ctx.addIssue({ code: 'custom', path: ['maxWidthCm'], message: 'Pad maximum width cannot be below its minimum' });
+    }
+  });
+export type PadSize = z.infer<typeof padSizeSchema>;
+
+export const planStepSchema = z.object({
+  index: z.number().int().nonnegative(),
+  kind: stepKindSchema,
+  label: z.string().min(1),
+  seconds: z.number().int().positive(),
+  cue: z.string().min(1),
+  needsConfirm: z.boolean(),
+  handsOn: z.boolean(),
+  optional: z.boolean(),
+});
+export type PlanStep = z.infer<typeof planStepSchema>;
+
+export const planSchema = z
+  .object({
+    phase: phaseSchema,
+    tolerance: toleranceSchema,
+    steps: z.array(planStepSchema).max(maxSequenceSteps),
+    cautions: z.array(z.string().min(1)),
+    backToCold: backToColdModeSchema,
+    padSize: padSizeSchema.nullable().default(null),
+    minColdIntervalSeconds: z.number().int().min(0).max(3600).default(defaultMinColdIntervalSeconds),
+  })
+  .superRefine((plan, ctx) => {
+    plan.steps.forEach((step, position) => {
+      // Table mode and the log address steps by index; a gap would misfile every entry after it.
+      if (step.index !== position) {
+        ctx.addIssue({ code: 'custom', path: ['steps', position, 'index'], message: `Step index must be ${position}` });
+      }
+      if (!isWithinBounds(step.kind, step.seconds)) {
+        ctx.addIssue({ code: 'custom', path: ['steps', position, 'seconds'], message: boundsMessage(step.kind) });
+      }
+      if (plan.backToCold === 'stop-elevate-refer' && stepKindInfo[step.kind].cold) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['steps', position, 'kind'],
+          message: 'A plan without cold (stop, elevate, refer) cannot hold a cold step',
+        });
+      }
+    });
+  });
+export type Plan = z.infer<typeof planSchema>;
+export type PlanInput = z.input<typeof planSchema>;
+
+export interface BuildPlanArgs {
+  phase: Phase;
+  sequence: Sequence;
+  tolerance: Tolerance;
+  padSize?: PadSize | null;
+  coldContraindicated: boolean;
+  suspectedMyositis: boolean;
+  /** The clinic's minimum break before a fresh cold pack; defaults to 10 minutes. */
+  minColdIntervalSeconds?: number;
+}
+
+export const cautionTexts = {
+  coldContraindicated:
+    'Cold is contraindicated: cold pack and ice massage are left out. If swelling increases: stop, elevate and refer.',
+  suspectedMyositis:
+    'Suspected myositis ossificans: no friction, broadening or stripping; keep light work away from the firm area. Refer for imaging.',
+  nothingLeft:
+    'No steps are left after the screening changes: do not start table mode; go over the plan with your supervisor.',
+} as const;
+
+// Whole centimetres: a pad is cut by eye, and the cue must stay one line.
+function formatCm(value: number): string {
+  return String(Math.max(1, Math.round(value)));
+}
+
+function formatRange(min: number, max: number): string {
+  return min === max ? formatCm(min) : `${formatCm(min)}–${formatCm(max)}`;
+}
+
+/** The wrap cue names the pad size when the injury's size is known; no published pad size exists to default to. */
+export function compressionCue(padSize: PadSize | null | undefined): string {
+  if (!padSize) return stepKindInfo['compression-wrap'].cue;
+  const length = formatRange(padSize.minLengthCm, padSize.maxLengthCm);
+  const width = formatRange(padSize.minWidthCm, padSize.maxWidthCm);
+  return `Felt pad ${length} × ${width} cm; figure-of-eight wrap, below to above`;
+}
+
+export function stepCue(kind: StepKind, phase: Phase, padSize?: PadSize | null): string {
+  if (kind === 'compression-wrap') return compressionCue(padSize);
+  // In the acute phase the last rest is also the home-care hand-off, so its cue says so.
+  if (kind === 'rest-recheck' && phase === 'acute') return 'Re-check the swelling, then go through home care';
+  return stepKindInfo[kind].cue;
+}
+
+export function adjustedSeconds(kind: StepKind, seconds: number, tolerance: Tolerance): number {
+  const info = stepKindInfo[kind];
+  if (tolerance === 'usual' || !info.handsOn) return seconds;
+  return Math.min(info.bounds.max, Math.max(info.bounds.min, Math.round(seconds * lightToleranceFactor)));
+}
+
+export function buildPlan(args: BuildPlanArgs): Plan {
+  const { phase, sequence, tolerance, coldContraindicated, suspectedMyositis } = args;
+  const padSize = args.padSize ?? null;
+  if (sequence.phase !== phase) {
+    throw new RangeError(`The sequence is for the ${sequence.phase} phase, not ${phase}`);
+  }
+
+  const kept = sequence.steps.filter((step) => {
+    const info = stepKindInfo[step.kind];
+    if (coldContraindicated && info.cold) return false;
+    if (suspectedMyositis && info.deepWork) return false;
+    return true;
+  });
+
+  const steps: PlanStep[] = kept.map((step, index) => {
+    const info = stepKindInfo[step.kind];
+    return {
+      index,
+      kind: step.kind,
+      label: info.label,
+      seconds: adjustedSeconds(step.kind, step.seconds, tolerance),
+      cue: stepCue(step.kind, phase, padSize),
+      needsConfirm: info.needsConfirm,
+      handsOn: info.handsOn,
+      optional: step.optional,
+    };
+  });
+
+  const cautions: string[] = [];
+  if (coldContraindicated) cautions.push(cautionTexts.coldContraindicated);
+  if (suspectedMyositis) cautions.push(cautionTexts.suspectedMyositis);
+  if (steps.length === 0) cautions.push(cautionTexts.nothingLeft);
+
+  return planSchema.parse({
+    phase,
+    tolerance,
+    steps,
+    cautions,
+    backToCold: coldContraindicated ? 'stop-elevate-refer' : 'cold-and-compression',
+    padSize,
+    minColdIntervalSeconds: args.minColdIntervalSeconds ?? defaultMinColdIntervalSeconds,
+  });
+}
