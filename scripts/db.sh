@@ -3,6 +3,7 @@
 #   scripts/db.sh start [demo|test]   install PostgreSQL if missing, create the cluster, start it, create the database
 #   scripts/db.sh stop  [demo|test]   stop the cluster
 #   scripts/db.sh url   [demo|test]   print the DATABASE_URL for it
+#   scripts/db.sh status [demo|test]  exit 0 when running
 # Idempotent: a second start finds the cluster running. When DATABASE_URL is set, nothing here is needed.
 set -euo pipefail
 
@@ -68,6 +69,10 @@ fi
 logfile="$(dirname "$datadir")/pg-$flavour.log"
 
 is_running() { as_pg "$bin/pg_ctl" -D "$datadir" status >/dev/null 2>&1; }
+
+if [ "$action" = status ]; then
+  if [ -d "$datadir" ] && is_running; then echo running; exit 0; else echo stopped; exit 3; fi
+fi
 
 if [ "$action" = stop ]; then
   if [ -d "$datadir" ] && is_running; then

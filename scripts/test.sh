@@ -10,6 +10,8 @@ ensure_apt_package /usr/bin/chromium chromium
 
 export NODE_ENV=test
 if [ -z "${DATABASE_URL:-}" ]; then
+  # A cluster this run started is stopped at the end, so its port is free for the next checkout's run.
+  if ! bash scripts/db.sh status test >/dev/null 2>&1; then trap 'bash scripts/db.sh stop test >/dev/null 2>&1 || true' EXIT; fi
   DATABASE_URL=$(bash scripts/db.sh start test)
   # A clean database every run, so no test depends on what an earlier run left behind.
   psql "$DATABASE_URL" -q -c 'DROP SCHEMA public CASCADE; CREATE SCHEMA public;' >/dev/null 2>&1 \

@@ -17,6 +17,8 @@ import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { requireSignIn } from './middleware/auth';
 import { authRoutes } from './routes/auth';
 import { staffRoutes } from './routes/staff';
+import { athleteRoutes } from './routes/athletes';
+import { injuryRoutes } from './routes/injuries';
 import { findActiveSessionUser, verifyCredentials } from './services/auth-service';
 import type { SessionUser } from '../shared/auth/schemas';
 
@@ -116,6 +118,8 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
   api.use('/auth', authRoutes(config, generateCsrfToken));
   api.use(requireSignIn);
   api.use('/staff', staffRoutes());
+  api.use('/athletes', athleteRoutes());
+  api.use('/injuries', injuryRoutes());
   api.use(notFoundApi);
   app.use('/api', api);
 

@@ -20,22 +20,23 @@ export class Measurement extends Model<InferAttributes<Measurement>, InferCreati
   declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
-    const cm = { type: DataTypes.DOUBLE, allowNull: true };
+    // A fresh object per attribute: Sequelize writes each attribute's column name into its definition.
+    const cm = () => ({ type: DataTypes.DOUBLE, allowNull: true });
     Measurement.init(
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         clinicId: { type: DataTypes.UUID, allowNull: false },
         injuryId: { type: DataTypes.UUID, allowNull: false },
         takenAt: { type: DataTypes.DATE, allowNull: false },
-        girthInjuredCm: cm,
-        girthOtherCm: cm,
+        girthInjuredCm: cm(),
+        girthOtherCm: cm(),
         girthLandmark: { type: DataTypes.STRING(120), allowNull: true },
-        girthDistanceCm: cm,
+        girthDistanceCm: cm(),
         kneeFlexionDeg: { type: DataTypes.INTEGER, allowNull: true },
         painNprs: { type: DataTypes.INTEGER, allowNull: true },
-        bruiseLengthCm: cm,
-        bruiseWidthCm: cm,
-        skinfoldMm: cm,
+        bruiseLengthCm: cm(),
+        bruiseWidthCm: cm(),
+        skinfoldMm: cm(),
         notes: { type: DataTypes.TEXT, allowNull: true },
         recordedBy: { type: DataTypes.UUID, allowNull: true },
         createdAt: DataTypes.DATE,

@@ -9,3 +9,4 @@ export * from './cold-schedule';
 export * from './girth';
 export * from './pain';
 export * from './assess-injury';
+export * from './remeasure';

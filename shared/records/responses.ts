@@ -1,0 +1,79 @@
+import type { InjuryAssessment } from '../clinical/assess-injury';
+import type { ColdSchedule } from '../clinical/cold-schedule';
+import type { Phase } from '../phase';
+
+/** What the API sends back for records: one definition for server and client. */
+export interface AthleteView {
+  id: string;
+  name: string;
+  yearOfBirth: number;
+  sport: string;
+  position: string | null;
+  email: string | null;
+  consentToTreatment: boolean;
+  consentRecordedAt: string | null;
+  consentRecordedByName: string | null;
+  notes: string | null;
+  createdAt: string;
+  openInjuries?: number;
+}
+
+export interface MeasurementView {
+  id: string;
+  injuryId: string;
+  takenAt: string;
+  girthInjuredCm: number | null;
+  girthOtherCm: number | null;
+  girthLandmark: string | null;
+  girthDistanceCm: number | null;
+  kneeFlexionDeg: number | null;
+  painNprs: number | null;
+  bruiseLengthCm: number | null;
+  bruiseWidthCm: number | null;
+  skinfoldMm: number | null;
+  notes: string | null;
+  recordedByName: string | null;
+}
+
+export interface InjuryView {
+  id: string;
+  athleteId: string;
+  athleteName: string;
+  region: string;
+  regionLabel: string;
+  side: 'left' | 'right';
+  mechanismKind: string;
+  mechanism: string | null;
+  injuredAt: string;
+  haematomaType: string;
+  previousQuadricepsInjury: boolean;
+  kneeEffusion: boolean;
+  treatmentStartedAt: string | null;
+  status: 'open' | 'closed';
+  closedAt: string | null;
+  phaseOverride: { phase: Phase; reason: string; at: string; byName: string | null } | null;
+  // The computed fields every screen shows the same way.
+  severity: InjuryAssessment['severity'];
+  suggestedPhase: Phase;
+  phase: Phase;
+  phaseReason: string;
+  phaseIsOverride: boolean;
+  risks: InjuryAssessment['risks'];
+  assessment: InjuryAssessment;
+  lastMeasuredAt: string | null;
+  remeasureDue: boolean;
+}
+
+export interface InjuryDetailView {
+  injury: InjuryView;
+  athlete: AthleteView;
+  measurements: MeasurementView[];
+  coldSchedule: ColdSchedule;
+}
+
+export interface Paged<T> {
+  items: T[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
