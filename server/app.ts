@@ -19,6 +19,8 @@ import { authRoutes } from './routes/auth';
 import { staffRoutes } from './routes/staff';
 import { athleteRoutes } from './routes/athletes';
 import { injuryRoutes } from './routes/injuries';
+import { runRoutes } from './routes/runs';
+import { sequenceRoutes } from './routes/sequences';
 import { findActiveSessionUser, verifyCredentials } from './services/auth-service';
 import type { SessionUser } from '../shared/auth/schemas';
 
@@ -120,6 +122,8 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
   api.use('/staff', staffRoutes());
   api.use('/athletes', athleteRoutes());
   api.use('/injuries', injuryRoutes());
+  api.use('/runs', runRoutes());
+  api.use('/sequences', sequenceRoutes());
   api.use(notFoundApi);
   app.use('/api', api);
 

@@ -5,6 +5,8 @@ export class AppError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** Extra members of the error object a client can act on (e.g. the id of the run that is already active). */
+    readonly extra?: Record<string, unknown>,
   ) {
     super(message);
   }
@@ -22,7 +24,7 @@ export class AppError extends Error {
   static notFound(what = 'Record') {
     return new AppError(404, 'not_found', `${what} not found.`);
   }
-  static conflict(message: string) {
-    return new AppError(409, 'conflict', message);
+  static conflict(message: string, code = 'conflict', extra?: Record<string, unknown>) {
+    return new AppError(409, code, message, undefined, extra);
   }
 }

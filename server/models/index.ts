@@ -4,9 +4,12 @@ import { AuditEvent } from './audit-event';
 import { Clinic } from './clinic';
 import { Injury } from './injury';
 import { Measurement } from './measurement';
+import { Run } from './run';
+import { RunLogEntry } from './run-log-entry';
+import { Sequence } from './sequence';
 import { User } from './user';
 
-export { Athlete, AuditEvent, Clinic, Injury, Measurement, User };
+export { Athlete, AuditEvent, Clinic, Injury, Measurement, Run, RunLogEntry, Sequence, User };
 
 export function initModels(sequelize: Sequelize) {
   Clinic.initModel(sequelize);
@@ -15,4 +18,7 @@ export function initModels(sequelize: Sequelize) {
   Athlete.initModel(sequelize);
   Injury.initModel(sequelize);
   Measurement.initModel(sequelize);
+  Sequence.initModel(sequelize);
+  Run.initModel(sequelize);
+  RunLogEntry.initModel(sequelize);
 }

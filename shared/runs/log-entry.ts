@@ -30,6 +30,8 @@ export const swellingCheckDetails = { increased: 'increased', notIncreased: 'not
 export const logEntrySchema = z
   .object({
     type: logEntryTypeSchema,
+    /** The machine's running count (from 1): the order entries happened in, whatever order they arrive in. */
+    seq: z.number().int().positive().max(100_000).optional(),
     stepIndex: z.number().int().nonnegative().max(99).optional(),
     kind: stepKindSchema.optional(),
     plannedSeconds: z.number().int().nonnegative().max(24 * 3600).optional(),
