@@ -8,6 +8,8 @@ export class ApiError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** Other members of the server's error object, e.g. `runId` of a run already in progress. */
+    readonly extra: Record<string, unknown> = {},
   ) {
     super(message);
   }
@@ -58,7 +60,8 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}, 
       forgetCsrfToken();
       return apiRequest<T>(path, options, true);
     }
-    throw new ApiError(response.status, error.code ?? 'http_error', error.message ?? `Request failed (${response.status}).`, error.fields);
+    const { code, message, fields, ...extra } = error;
+    throw new ApiError(response.status, code ?? 'http_error', message ?? `Request failed (${response.status}).`, fields, extra);
   }
   return payload as T;
 }
