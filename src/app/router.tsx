@@ -1,9 +1,16 @@
 import { createBrowserRouter, Link } from 'react-router-dom';
+import { AthleteRoute } from './routes/athlete-route';
+import { AthletesRoute } from './routes/athletes-route';
 import { HomeRoute } from './routes/home-route';
+import { InjuryRoute } from './routes/injury-route';
 import { ReviewRoute } from './routes/review-route';
 import { SignInRoute } from './routes/sign-in-route';
 import { StaffRoute } from './routes/staff-route';
 import { TodayRoute } from './routes/today-route';
+import { RunSummaryRoute } from './routes/run-summary-route';
+import { ScreeningRoute } from './routes/screening-route';
+import { StartRunRoute } from './routes/start-run-route';
+import { TableRoute } from './routes/table-route';
 
 function NotFound() {
   return (
@@ -20,8 +27,15 @@ export const routes = [
   { path: '/', element: <HomeRoute /> },
   { path: '/sign-in', element: <SignInRoute /> },
   { path: '/today', element: <TodayRoute /> },
+  { path: '/athletes', element: <AthletesRoute /> },
+  { path: '/athletes/:id', element: <AthleteRoute /> },
+  { path: '/injuries/:id', element: <InjuryRoute /> },
   { path: '/review', element: <ReviewRoute /> },
   { path: '/staff', element: <StaffRoute /> },
+  { path: '/runs/new', element: <StartRunRoute /> },
+  { path: '/runs/:id/screening', element: <ScreeningRoute /> },
+  { path: '/runs/:id/summary', element: <RunSummaryRoute /> },
+  { path: '/table/:runId', element: <TableRoute /> },
   { path: '*', element: <NotFound /> },
 ];
 

@@ -1,4 +1,5 @@
 import { RequireAuth } from '../../features/auth/components/require-auth';
+import { TodayBoard } from '../../features/today/components/today-board';
 import { AppShell } from '../layout/app-shell';
 
 export function TodayRoute() {
@@ -7,7 +8,10 @@ export function TodayRoute() {
       {(user) => (
         <AppShell user={user}>
           <h1 className="text-2xl font-semibold">Today</h1>
-          <p className="mt-2 text-ink-muted">Good to see you, {user.name.split(' ')[0]}. Open injuries and re-checks for {user.clinicName ?? 'your clinic'} appear here.</p>
+          <p className="mb-4 mt-1 text-ink-muted">
+            Good to see you, {user.name.split(' ')[0]}. Open injuries at {user.clinicName ?? 'your clinic'}, newest first.
+          </p>
+          <TodayBoard />
         </AppShell>
       )}
     </RequireAuth>
