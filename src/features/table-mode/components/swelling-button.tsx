@@ -53,7 +53,7 @@ export function SwellingButton({ onConfirm, disabled, label }: { onConfirm: () =
       onPointerUp={() => holdTimer.current && clearTimeout(holdTimer.current)}
       onPointerLeave={() => holdTimer.current && clearTimeout(holdTimer.current)}
       aria-describedby="swelling-hint"
-      className={`flex min-h-[96px] w-full items-center justify-center gap-3 rounded-2xl border-4 px-6 text-2xl font-bold transition-colors disabled:opacity-40 ${
+      className={`flex min-h-[88px] w-full items-center justify-center gap-3 rounded-2xl border-4 px-6 text-2xl font-bold transition-colors disabled:opacity-40 ${
         armed ? 'border-amber-300 bg-amber-300 text-slate-950' : 'border-amber-300 bg-slate-900 text-amber-200'
       }`}
     >

@@ -101,6 +101,9 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
   const [speech, setSpeech] = useState(true);
   const [keyArmed, setKeyArmed] = useState(false);
   const running = status === 'active' && !isReady;
+  // The machine decides what is allowed now (no pausing a cold pack, no skipping back to cold).
+  const can = (type: 'PAUSE' | 'RESUME' | 'EXTEND') => snapshot.can({ type, at: now });
+  const canSkip = snapshot.can({ type: 'SKIP', at: now, reason: 'check' });
   useWakeLock(status === 'active');
   useCues(actor, player, now);
 
@@ -195,7 +198,7 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
 
   return (
     <>
-      <div className="flex flex-1 flex-col items-center gap-3 lg:flex-row lg:items-stretch lg:gap-10">
+      <div className="flex flex-1 flex-col items-center gap-3 lg:flex-row lg:items-center lg:gap-10">
         <div className="flex flex-col items-center justify-center">
           <CountdownRing remainingMs={awaitingConfirm ? null : remaining} totalMs={totalMs} paused={isPaused} />
         </div>
@@ -210,10 +213,10 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
             )}
             {isPaused ? <span className="ml-3 rounded-lg bg-slate-200 px-3 py-1 text-slate-950">Paused</span> : null}
           </p>
-          <h2 className="text-6xl font-bold text-paper" data-testid="step-label">
+          <h2 className="text-5xl font-bold leading-tight text-paper" data-testid="step-label">
             {step?.label}
           </h2>
-          <p className="text-3xl leading-snug text-slate-200">{step?.cue}</p>
+          <p className="text-2xl leading-snug text-slate-200">{step?.cue}</p>
           {info?.cold ? (
             <p className="flex items-start gap-2 text-lg text-amber-200">
               <AlertTriangle aria-hidden className="mt-1 h-5 w-5 shrink-0" /> Caution: {coldCaution}
@@ -244,14 +247,14 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
           label={keyArmed ? 'Press S again to confirm' : 'Swelling has increased'}
         />
         <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
-          <button type="button" onClick={() => send({ type: isPaused ? 'RESUME' : 'PAUSE', at: at() })} className="flex min-h-table-target flex-col items-center justify-center rounded-2xl bg-slate-800 text-lg font-semibold text-paper">
+          <button type="button" onClick={() => send({ type: isPaused ? 'RESUME' : 'PAUSE', at: at() })} disabled={!can(isPaused ? 'RESUME' : 'PAUSE')} className="flex min-h-table-target flex-col items-center justify-center rounded-2xl bg-slate-800 text-lg font-semibold text-paper disabled:opacity-40">
             {isPaused ? <Play aria-hidden className="h-7 w-7" /> : <Pause aria-hidden className="h-7 w-7" />}
             {isPaused ? 'Resume' : 'Pause'}
           </button>
-          <button type="button" onClick={() => send({ type: 'EXTEND', at: at() })} disabled={awaitingConfirm} className="flex min-h-table-target flex-col items-center justify-center rounded-2xl bg-slate-800 text-lg font-semibold text-paper disabled:opacity-40">
+          <button type="button" onClick={() => send({ type: 'EXTEND', at: at() })} disabled={awaitingConfirm || !can('EXTEND')} className="flex min-h-table-target flex-col items-center justify-center rounded-2xl bg-slate-800 text-lg font-semibold text-paper disabled:opacity-40">
             <Plus aria-hidden className="h-7 w-7" /> 1 min
           </button>
-          <button type="button" onClick={() => setSheet('skip')} disabled={inBackToCold} className="flex min-h-table-target flex-col items-center justify-center rounded-2xl bg-slate-800 text-lg font-semibold text-paper disabled:opacity-40">
+          <button type="button" onClick={() => setSheet('skip')} disabled={!canSkip} className="flex min-h-table-target flex-col items-center justify-center rounded-2xl bg-slate-800 text-lg font-semibold text-paper disabled:opacity-40">
             <SkipForward aria-hidden className="h-7 w-7" /> Skip
           </button>
           <button type="button" onClick={() => setSheet('red-flag')} className="flex min-h-table-target flex-col items-center justify-center rounded-2xl bg-red-900 text-lg font-semibold text-white">

@@ -1,0 +1,121 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { launchBrowser, screenshot, signIn, startServer } from '../support/e2e';
+
+let server: Awaited<ReturnType<typeof startServer>>;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startServer();
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+/** Calls the API from inside the signed-in page, with the CSRF token, as the app itself does. */
+async function api<T>(page: Page, method: string, path: string, body?: unknown): Promise<T> {
+  return page.evaluate(
+    async ({ method, path, body }) => {
+      const token = (await (await fetch('/api/auth/csrf')).json()).token;
+      const res = await fetch(path, { method, headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': token }, body: body ? JSON.stringify(body) : undefined });
+      return res.json();
+    },
+    { method, path, body },
+  ) as Promise<T>;
+}
+
+/** A new athlete with a calf contusion injured `days` ago, so each test has its own proliferative injury. */
+async function newInjury(page: Page, name: string, days: number) {
+  const { athlete } = await api<{ athlete: { id: string } }>(page, 'POST', '/api/athletes', { name, yearOfBirth: 1999, sport: 'Hockey' });
+  const injuredAt = new Date(Date.now() - days * 86_400_000).toISOString();
+  const { injury } = await api<{ injury: { id: string } }>(page, 'POST', '/api/injuries', { athleteId: athlete.id, region: 'calf', side: 'left', mechanismKind: 'ball', injuredAt });
+  return injury.id;
+}
+
+async function openTableMode(page: Page, injuryId: string) {
+  await page.goto(`${server.baseUrl}/runs/new?injuryId=${injuryId}`);
+  await page.waitForURL(/\/runs\/[0-9a-f-]+\/screening$/);
+  await page.getByRole('button', { name: 'Save screening and review the plan' }).click();
+  await page.getByRole('link', { name: 'Open table mode' }).click();
+  await page.waitForURL(/\/table\//);
+  await page.getByRole('button', { name: 'Begin' }).click();
+  return page.url().split('/table/')[1];
+}
+
+async function therapistPage(): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+  const page = await context.newPage();
+  // The page's clock is Playwright's, so minutes of treatment pass in moments without a time scale in the product.
+  await page.clock.install();
+  await signIn(page, server.baseUrl, 'therapist@mendstep.test');
+  await page.waitForURL('**/today');
+  return { context, page };
+}
+
+type Entry = { key: string; type: string; seq: number | null; stepIndex: number | null };
+
+describe('table mode in Chromium at 1280×800', () => {
+  it('plays a proliferative run step to step with cues, resumes the same step after a reload, and falls back to cold on swelling', async () => {
+    const { context, page } = await therapistPage();
+    const injuryId = await newInjury(page, 'Tova Rennick', 10);
+    const runId = await openTableMode(page, injuryId);
+
+    await expect(page.getByTestId('step-label').textContent()).resolves.toBe('Ice massage');
+    await screenshot(page, 'table-mode-ice-massage');
+    // Default proliferative ice massage: 6 minutes (within the 5–7 minutes of common practice).
+    await page.clock.runFor(360_000 + 1_000);
+    await page.getByTestId('step-label').getByText('Light centre-out strokes').waitFor();
+    const cues = await page.evaluate(() => (window.mendstepCueTimings ?? []).map((c) => c.cue));
+    expect(cues).toContain('one-minute');
+    expect(cues).toContain('final-five');
+    expect(cues).toContain('step-end');
+
+    // Halfway into the step, a reload resumes the same step with the right remaining time.
+    await page.clock.runFor(30_000);
+    const before = await page.getByTestId('countdown').textContent();
+    const clockBefore = await page.evaluate(() => Date.now());
+    await page.reload();
+    await page.getByTestId('step-label').getByText('Light centre-out strokes').waitFor();
+    const after = await page.getByTestId('countdown').textContent();
+    // The page's clock moves on during the reload; the remaining time must have moved with it, no more, no less.
+    const elapsed = ((await page.evaluate(() => Date.now())) - clockBefore) / 1000;
+    const toSeconds = (t: string | null) => Number(t!.split(':')[0]) * 60 + Number(t!.split(':')[1]);
+    expect(Math.abs(toSeconds(before) - elapsed - toSeconds(after))).toBeLessThanOrEqual(2);
+
+    const swelling = page.getByRole('button', { name: /Swelling has increased/ });
+    await swelling.click();
+    await page.getByRole('button', { name: /Tap again to confirm/ }).click();
+    await page.getByText('Back to cold', { exact: true }).first().waitFor();
+    await screenshot(page, 'table-mode-back-to-cold');
+
+    await page.getByText('All saved').waitFor();
+    const detail = await api<{ entries: Entry[]; run: { status: string } }>(page, 'GET', `/api/runs/${runId}`);
+    const types = detail.entries.map((e) => e.type);
+    expect(types).toEqual(['step-completed', 'step-interrupted', 'swelling-check']);
+    expect(new Set(detail.entries.map((e) => e.key)).size).toBe(detail.entries.length);
+    await context.close();
+  });
+
+  it('going offline mid-run loses nothing: entries wait, then reach the server exactly once', async () => {
+    const { context, page } = await therapistPage();
+    const injuryId = await newInjury(page, 'Imre Okafor-Dunn', 10);
+    const runId = await openTableMode(page, injuryId);
+
+    await context.setOffline(true);
+    await page.clock.runFor(360_000 + 1_000); // ice massage completes while offline
+    await page.getByRole('button', { name: 'Pause' }).click();
+    await page.getByText(/2 waiting to save/).waitFor();
+    await screenshot(page, 'table-mode-offline');
+
+    await context.setOffline(false);
+    await page.clock.runFor(35_000); // the sender's backoff wait passes
+    await page.getByText('All saved').waitFor({ timeout: 20_000 });
+    const detail = await api<{ entries: Entry[] }>(page, 'GET', `/api/runs/${runId}`);
+    expect(detail.entries.map((e) => e.type)).toEqual(['step-completed', 'paused']);
+    expect(detail.entries.map((e) => e.seq)).toEqual([1, 2]);
+    await context.close();
+  });
+});
