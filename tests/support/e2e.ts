@@ -13,7 +13,8 @@ export const SCREENSHOTS = path.resolve(import.meta.dirname, '../../.data/screen
 /** The built client and the API on one port, as `npm start` serves them, on a free port. */
 export async function startServer(overrides: Record<string, string> = {}) {
   const config = loadConfig({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '1000', PORT: '0', ...overrides });
-  const handle = createApp(config);
+  // CLIENT_DIST lets parallel work build the client into a folder of its own.
+  const handle = createApp(config, { clientDist: process.env.CLIENT_DIST ? path.resolve(process.env.CLIENT_DIST) : undefined });
   const server: Server = await new Promise((resolve) => {
     const s = handle.app.listen(0, '127.0.0.1', () => resolve(s));
   });
