@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { ArrowLeft, Plus } from 'lucide-react';
@@ -17,6 +17,12 @@ function AthletePage({ athleteId }: { athleteId: string }) {
   const [recording, setRecording] = useState(false);
   const navigate = useNavigate();
   const queryClient = useQueryClient();
+  const recordSection = useRef<HTMLElement>(null);
+
+  // The form opens below the fold on a landscape tablet; bring it up so the map is in view.
+  useEffect(() => {
+    if (recording) recordSection.current?.scrollIntoView?.({ block: 'start' });
+  }, [recording]);
 
   if (detail.isPending) return <p className="text-ink-muted">Loading the athlete…</p>;
   if (detail.isError) {
@@ -59,7 +65,7 @@ function AthletePage({ athleteId }: { athleteId: string }) {
         </section>
       </div>
       {recording ? (
-        <section aria-labelledby="record-heading" className="flex flex-col gap-3 rounded-xl bg-paper-raised p-4 ring-2 ring-ink/20">
+        <section ref={recordSection} aria-labelledby="record-heading" className="flex flex-col gap-3 rounded-xl bg-paper-raised p-4 ring-2 ring-ink/20">
           <h2 id="record-heading" className="text-lg font-semibold">
             Record an injury
           </h2>

@@ -46,7 +46,7 @@ describe('the body-map picker', () => {
     const onChange = vi.fn();
     render(<Harness onChange={onChange} />);
     await userEvent.tab();
-    const first = screen.getByRole('radio', { name: 'Shoulder (deltoid), right' });
+    const first = screen.getByRole('radio', { name: 'Shoulder (deltoid), right, front view' });
     expect(first).toHaveFocus();
     // Only one stop in the tab order for the whole map.
     expect(screen.getAllByRole('radio').filter((r) => r.getAttribute('tabindex') === '0')).toHaveLength(1);
@@ -56,7 +56,7 @@ describe('the body-map picker', () => {
     expect(first).toHaveAttribute('aria-checked', 'true');
 
     await userEvent.keyboard('{ArrowRight}');
-    const second = screen.getByRole('radio', { name: 'Shoulder (deltoid), left' });
+    const second = screen.getByRole('radio', { name: 'Shoulder (deltoid), left, front view' });
     expect(second).toHaveFocus();
     expect(second).toHaveAttribute('aria-checked', 'true');
     expect(first).toHaveAttribute('aria-checked', 'false');
@@ -77,5 +77,12 @@ describe('the body-map picker', () => {
     await userEvent.click(screen.getByLabelText('Right'));
     expect(onChange).toHaveBeenLastCalledWith({ region: 'calf', side: 'right' });
     expect(screen.getByRole('radio', { name: 'Calf, right' })).toHaveAttribute('aria-checked', 'true');
+  });
+
+  it('marks a region drawn in both views as chosen in both, each named with its view', async () => {
+    render(<Harness onChange={vi.fn()} />);
+    await userEvent.click(screen.getByRole('radio', { name: 'Lateral thigh, right, back view' }));
+    expect(screen.getByRole('radio', { name: 'Lateral thigh, right, front view' })).toHaveAttribute('aria-checked', 'true');
+    expect(screen.getByTestId('chosen-site')).toHaveTextContent('Lateral thigh, right');
   });
 });

@@ -2,7 +2,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { PhaseCard } from '../../../src/features/injuries/components/phase-card';
-import { fakeServer, hoursAgo, makeInjury, renderWithProviders } from './harness';
+import { fakeServer, makeInjury, renderWithProviders } from './harness';
 
 afterEach(() => {
   vi.unstubAllGlobals();
@@ -50,10 +50,9 @@ describe('the phase card', () => {
     renderWithProviders(<PhaseCard injury={injury} />);
     const card = screen.getByRole('region', { name: 'Phase of healing' });
     expect(within(card).getByText('Override')).toBeInTheDocument();
-    expect(within(card).getByText(/Suggested from time and signs/)).toBeInTheDocument();
+    expect(screen.getByTestId('phase-reason')).toHaveTextContent('Set to proliferative by the therapist: Early recovery. Suggested from time and signs: acute.');
     expect(within(card).getByText(/Set by Tamsin Ruel/)).toBeInTheDocument();
-    expect(injury.phaseOverride?.at).toBeDefined();
-    expect(hoursAgo(0)).toBeTruthy();
+    expect(within(card).getByText(/Day 0 since injury: days 0 to 6 are the acute phase/)).toBeInTheDocument();
 
     await userEvent.click(within(card).getByRole('button', { name: 'Clear override' }));
     await waitFor(() => expect(calls.find((c) => c.method === 'PUT')?.body).toEqual({ override: null }));

@@ -39,6 +39,11 @@ function leftOf(area: BodyMapArea) {
   return area.shape.kind === 'rect' ? area.shape.x : Math.min(...area.shape.points.map(([x]) => x));
 }
 
+/** Shoulder, forearm and lateral thigh are drawn in both views; their names say which view, so no two radios share a name. */
+const drawnInBothViews = new Set(
+  bodyMapGeometry.front.areas.map((a) => a.regionId).filter((id) => bodyMapGeometry.back.areas.some((b) => b.regionId === id)),
+);
+
 const isSame = (a: BodySite | null, b: BodySite) => a !== null && a.region === b.region && a.side === b.side;
 
 /**
@@ -111,7 +116,7 @@ export function BodyMapPicker({ value, onChange, error, errorId }: { value: Body
                       },
                       role: 'radio',
                       'aria-checked': selected,
-                      'aria-label': siteLabel(site),
+                      'aria-label': drawnInBothViews.has(area.regionId) ? `${siteLabel(site)}, ${view} view` : siteLabel(site),
                       tabIndex: index === tabStop ? 0 : -1,
                       onClick: () => choose(index),
                       onKeyDown: (event: KeyboardEvent<SVGElement>) => onKeyDown(event, index),

@@ -89,7 +89,7 @@ export function RecordInjuryForm({ athleteId, onRecorded, onCancel }: { athleteI
 
   const onSubmit = handleSubmit((values) =>
     createInjury.mutate(values, {
-      onSuccess: onRecorded,
+      onSuccess: (injury) => onRecorded(injury),
       onError: (error) => showServerErrors<RecordInjuryValues>(error, fieldNames, setError),
     }),
   );
