@@ -83,7 +83,8 @@ function useCues(actor: RunActor, player: CuePlayer, now: number) {
 }
 
 function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; detail: RunDetailView; player: CuePlayer; sender: OutboxSender }) {
-  const now = useNow(200);
+  const deadline = useSelector(actor, (s) => s.context.deadline);
+  const now = useNow(deadline);
   const status = useSelector(actor, (s) => s.status);
   const isReady = useSelector(actor, (s) => s.matches('ready'));
   const isPaused = useSelector(actor, (s) => s.matches({ running: 'paused' }));
