@@ -32,3 +32,13 @@ migrate_and_seed() {
     npx sequelize-cli db:seed:all >/dev/null
   fi
 }
+
+# Builds the client unless dist/ is newer than every source it is built from (a second start skips it).
+build_client_if_changed() {
+  if [ -f dist/index.html ] && [ -z "$(find src shared machines public index.html vite.config.ts tailwind.config.ts package-lock.json -newer dist/index.html -print -quit 2>/dev/null)" ]; then
+    say "client is up to date"
+    return
+  fi
+  say "building the client"
+  npx vite build --logLevel error
+}

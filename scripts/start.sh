@@ -9,7 +9,6 @@ if [ -z "${DATABASE_URL:-}" ]; then
 fi
 export DATABASE_URL
 migrate_and_seed
-say "building the client"
-npx vite build --logLevel error
+build_client_if_changed
 say "serving on http://${HOST:-127.0.0.1}:${PORT:-3000} (Ctrl+C to stop; 'npm run db:stop' stops PostgreSQL)"
 exec node --import tsx server/index.ts

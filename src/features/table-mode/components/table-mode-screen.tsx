@@ -99,6 +99,7 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
   const saved = useOutboxStatus(sender);
   const [sheet, setSheet] = useState<null | 'skip' | 'red-flag' | 'finish'>(null);
   const [muted, setMuted] = useState(false);
+  const [volume, setVolume] = useState(90);
   const [speech, setSpeech] = useState(true);
   const [keyArmed, setKeyArmed] = useState(false);
   const running = status === 'active' && !isReady;
@@ -268,6 +269,22 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
           <button type="button" onClick={() => { setMuted(!muted); player.setMuted(!muted); }} className="flex min-h-table-target min-w-table-target items-center justify-center gap-2 rounded-xl px-3 ring-1 ring-slate-700" aria-pressed={muted}>
             {muted ? <VolumeX aria-hidden className="h-6 w-6" /> : <Volume2 aria-hidden className="h-6 w-6" />} {muted ? 'Sound off' : 'Sound on'}
           </button>
+          <label className="flex min-h-table-target items-center gap-2 rounded-xl px-3 ring-1 ring-slate-700">
+            <span>Volume</span>
+            <input
+              type="range"
+              min={0}
+              max={100}
+              step={10}
+              value={volume}
+              onChange={(event) => {
+                const next = Number(event.target.value);
+                setVolume(next);
+                player.setVolume(next / 100);
+              }}
+              className="w-28 accent-emerald-300"
+            />
+          </label>
           <button type="button" onClick={() => { setSpeech(!speech); player.setSpeech(!speech); }} className="min-h-table-target rounded-xl px-3 ring-1 ring-slate-700" aria-pressed={speech}>
             Spoken steps {speech ? 'on' : 'off'}
           </button>
