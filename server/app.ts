@@ -21,15 +21,28 @@ import { athleteRoutes } from './routes/athletes';
 import { injuryRoutes } from './routes/injuries';
 import { runRoutes } from './routes/runs';
 import { sequenceRoutes } from './routes/sequences';
+import { noteRoutes } from './routes/notes';
+import { reviewRoutes } from './routes/review';
 import { findActiveSessionUser, verifyCredentials } from './services/auth-service';
+import { startMail, type MailRuntime } from './mail/runtime';
+import { createStorage } from './storage';
+import { passwordRoutes } from './routes/password';
+import { mailboxRoutes } from './routes/mailbox';
+import { uploadRoutes } from './routes/uploads';
+import { healthRoutes } from './routes/health';
+import { settingsRoutes } from './routes/settings';
+import { auditRoutes } from './routes/audit';
 import type { SessionUser } from '../shared/auth/schemas';
 
-export type AppHandle = { app: Express; pool: pg.Pool };
+export type AppHandle = { app: Express; pool: pg.Pool; mail: MailRuntime };
 
 /** The middleware pipeline, top to bottom. Tests build it in-process against the real PostgreSQL. */
 export function createApp(config: Config, options: { clientDist?: string } = {}): AppHandle {
   connectDatabase(config.databaseUrl);
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
+  // E-mail (the outbox worker, and outside production a local SMTP server) and file storage live in this process.
+  const mail = startMail(config);
+  const storage = createStorage(config.storage);
 
   const app = express();
   app.disable('x-powered-by');
@@ -43,10 +56,12 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
         res.setHeader('X-Request-Id', id);
         return id;
       },
-      autoLogging: config.env !== 'test',
+      // Health probes arrive every few seconds from the proxy: logging each would bury the real requests.
+      autoLogging: config.env === 'test' ? false : { ignore: (req) => req.url === '/healthz' },
       // A line per request, without headers or cookies.
       serializers: {
-        req: (req) => ({ id: req.id, method: req.method, url: req.url }),
+        // Set-password links carry a token in the query: it never reaches the logs.
+        req: (req) => ({ id: req.id, method: req.method, url: req.url?.replace(/([?&]token=)[^&]*/g, '$1[redacted]') }),
         res: (res) => ({ statusCode: res.statusCode }),
       },
     }),
@@ -70,6 +85,9 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
       strictTransportSecurity: config.secureCookies,
     }),
   );
+
+  // Before sessions and CSRF: a probe carries no cookie and must not create a session.
+  app.use(healthRoutes(pool));
 
   app.use(express.json({ limit: '200kb' }));
   app.use(cookieParser());
@@ -118,12 +136,20 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
     res.json({ ok: true });
   });
   api.use('/auth', authRoutes(config, generateCsrfToken));
+  api.use('/auth', passwordRoutes(config));
+  api.use('/mailbox', mailboxRoutes(config));
   api.use(requireSignIn);
+  api.use(uploadRoutes(storage));
   api.use('/staff', staffRoutes());
   api.use('/athletes', athleteRoutes());
   api.use('/injuries', injuryRoutes());
+  // Notes first: their routes carry their own role guards, and the runs router guards everything it sees.
+  api.use('/runs', noteRoutes());
   api.use('/runs', runRoutes());
+  api.use('/review', reviewRoutes());
   api.use('/sequences', sequenceRoutes());
+  api.use('/settings', settingsRoutes());
+  api.use('/audit', auditRoutes());
   api.use(notFoundApi);
   app.use('/api', api);
 
@@ -132,10 +158,11 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
     app.use(express.static(dist, { index: false, maxAge: '1h' }));
     // Client-side routes: every other GET gets the app shell.
     app.get('/{*splat}', (_req, res) => {
-      res.sendFile(path.join(dist, 'index.html'));
+      // root + relative name: sendFile refuses paths through dot-folders such as .data/.
+      res.sendFile('index.html', { root: dist });
     });
   }
 
   app.use(errorHandler);
-  return { app, pool };
+  return { app, pool, mail };
 }

@@ -1,9 +1,10 @@
-import { loadConfig } from './config';
+import { assertDeployable, loadConfig } from './config';
 import { createApp } from './app';
 import { closeDatabase } from './db/connection';
 
 const config = loadConfig();
-const { app, pool } = createApp(config);
+assertDeployable(config);
+const { app, pool, mail } = createApp(config);
 
 const server = app.listen(config.port, config.host, () => {
   console.log(`Mendstep is serving on http://${config.host}:${config.port}`);
@@ -11,7 +12,10 @@ const server = app.listen(config.port, config.host, () => {
 
 function shutdown() {
   server.close(() => {
-    Promise.all([pool.end(), closeDatabase()]).finally(() => process.exit(0));
+    mail
+      .stop()
+      .finally(() => Promise.all([pool.end(), closeDatabase()]))
+      .finally(() => process.exit(0));
   });
   setTimeout(() => process.exit(0), 5000).unref();
 }

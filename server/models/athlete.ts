@@ -12,6 +12,9 @@ export class Athlete extends Model<InferAttributes<Athlete>, InferCreationAttrib
   declare consentRecordedBy: string | null;
   declare consentRecordedAt: Date | null;
   declare notes: string | null;
+  declare guardianName: CreationOptional<string | null>;
+  declare guardianConsentRecordedBy: CreationOptional<string | null>;
+  declare guardianConsentRecordedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -29,6 +32,9 @@ export class Athlete extends Model<InferAttributes<Athlete>, InferCreationAttrib
         consentRecordedBy: { type: DataTypes.UUID, allowNull: true },
         consentRecordedAt: { type: DataTypes.DATE, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: true },
+        guardianName: { type: DataTypes.STRING(120), allowNull: true },
+        guardianConsentRecordedBy: { type: DataTypes.UUID, allowNull: true },
+        guardianConsentRecordedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

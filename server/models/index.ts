@@ -8,8 +8,15 @@ import { Run } from './run';
 import { RunLogEntry } from './run-log-entry';
 import { Sequence } from './sequence';
 import { User } from './user';
+import { AuthToken } from './auth-token';
+import { MailboxMessage } from './mailbox-message';
+import { OutboundEmail } from './outbound-email';
+import { Upload } from './upload';
+import { SessionNote } from './session-note';
 
 export { Athlete, AuditEvent, Clinic, Injury, Measurement, Run, RunLogEntry, Sequence, User };
+export { AuthToken, MailboxMessage, OutboundEmail, Upload };
+export { SessionNote };
 
 export function initModels(sequelize: Sequelize) {
   Clinic.initModel(sequelize);
@@ -21,4 +28,9 @@ export function initModels(sequelize: Sequelize) {
   Sequence.initModel(sequelize);
   Run.initModel(sequelize);
   RunLogEntry.initModel(sequelize);
+  OutboundEmail.initModel(sequelize);
+  MailboxMessage.initModel(sequelize);
+  AuthToken.initModel(sequelize);
+  Upload.initModel(sequelize);
+  SessionNote.initModel(sequelize);
 }

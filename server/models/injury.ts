@@ -1,7 +1,16 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Phase } from '../../shared/phase';
+import type { CriterionResult } from '../../shared/clinical/return-to-activity';
 
 export type StoredPhaseOverride = { phase: Phase; reason: string; by: string; at: string };
+/** How the injury was closed: the return-to-activity check as it stood at closing. */
+export type StoredClosure = {
+  closedBy: string;
+  allMet: boolean;
+  criteria: CriterionResult[];
+  measurement: { id: string | null; takenAt: string } | null;
+  reason: string | null;
+};
 
 export class Injury extends Model<InferAttributes<Injury>, InferCreationAttributes<Injury>> {
   declare id: CreationOptional<string>;
@@ -20,6 +29,10 @@ export class Injury extends Model<InferAttributes<Injury>, InferCreationAttribut
   declare closedAt: Date | null;
   declare phaseOverride: StoredPhaseOverride | null;
   declare createdBy: string | null;
+  declare nextRecheckAt: CreationOptional<Date | null>;
+  declare recheckSetBy: CreationOptional<string | null>;
+  declare reinjuryOfId: CreationOptional<string | null>;
+  declare closure: CreationOptional<StoredClosure | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -42,6 +55,10 @@ export class Injury extends Model<InferAttributes<Injury>, InferCreationAttribut
         closedAt: { type: DataTypes.DATE, allowNull: true },
         phaseOverride: { type: DataTypes.JSONB, allowNull: true },
         createdBy: { type: DataTypes.UUID, allowNull: true },
+        nextRecheckAt: { type: DataTypes.DATE, allowNull: true },
+        recheckSetBy: { type: DataTypes.UUID, allowNull: true },
+        reinjuryOfId: { type: DataTypes.UUID, allowNull: true },
+        closure: { type: DataTypes.JSONB, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

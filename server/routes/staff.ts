@@ -4,10 +4,14 @@ import { AppError } from '../errors';
 import { currentUser, requireRole } from '../middleware/auth';
 import { parseInput } from '../middleware/validate';
 import { getStaffMember, listStaff } from '../services/staff-service';
+import { updateStaffMember } from '../services/staff-admin-service';
+import { staffUpdateSchema } from '../../shared/staff/schemas';
+import { invitationRoutes } from './invitations';
 
 export function staffRoutes(): Router {
   const router = Router();
   router.use(requireRole('admin'));
+  router.use('/invitations', invitationRoutes());
 
   router.get('/', async (req, res) => {
     res.json({ staff: await listStaff(currentUser(req)) });
@@ -18,6 +22,11 @@ export function staffRoutes(): Router {
     const member = await getStaffMember(currentUser(req), id);
     if (!member) throw AppError.notFound('Staff member');
     res.json({ member });
+  });
+
+  router.patch('/:id', async (req, res) => {
+    const { id } = parseInput(idParamsSchema, req.params);
+    res.json({ member: await updateStaffMember(currentUser(req), id, parseInput(staffUpdateSchema, req.body)) });
   });
 
   return router;

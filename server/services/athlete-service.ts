@@ -5,9 +5,11 @@ import type { AthleteView, Paged } from '../../shared/records/responses';
 import { AppError } from '../errors';
 import { Athlete, User } from '../models';
 import { recordAudit } from './audit-service';
+import { guardianConsentFields, guardianConsentView } from './guardian-consent-service';
 
 export async function toAthleteView(athlete: Athlete): Promise<AthleteView> {
   const recordedBy = athlete.consentRecordedBy ? await User.findByPk(athlete.consentRecordedBy) : null;
+  const guardian = await guardianConsentView(athlete);
   return {
     id: athlete.id,
     name: athlete.name,
@@ -18,6 +20,7 @@ export async function toAthleteView(athlete: Athlete): Promise<AthleteView> {
     consentToTreatment: athlete.consentToTreatment,
     consentRecordedAt: athlete.consentRecordedAt?.toISOString() ?? null,
     consentRecordedByName: recordedBy?.name ?? null,
+    ...guardian,
     notes: athlete.notes,
     createdAt: athlete.createdAt.toISOString(),
   };
@@ -82,6 +85,7 @@ export async function createAthlete(actor: SessionUser, input: AthleteCreate): P
         consentRecordedBy: null,
         consentRecordedAt: null,
         ...consentFields(actor, input.consentToTreatment),
+        ...guardianConsentFields(actor, input.guardianConsent),
       },
       { transaction },
     );
@@ -93,9 +97,9 @@ export async function createAthlete(actor: SessionUser, input: AthleteCreate): P
 
 export async function updateAthlete(actor: SessionUser, id: string, input: AthleteUpdate): Promise<AthleteView> {
   const athlete = await findAthlete(actor, id);
-  const { consentToTreatment, ...rest } = input;
+  const { consentToTreatment, guardianConsent, ...rest } = input;
   await Athlete.sequelize!.transaction(async (transaction) => {
-    await athlete.update({ ...rest, ...consentFields(actor, consentToTreatment, athlete) }, { transaction });
+    await athlete.update({ ...rest, ...consentFields(actor, consentToTreatment, athlete), ...guardianConsentFields(actor, guardianConsent, athlete) }, { transaction });
     await recordAudit(actor, 'athlete.updated', { type: 'athlete', id }, { fields: Object.keys(input) }, transaction);
   });
   return toAthleteView(athlete);

@@ -4,6 +4,7 @@ import type { ClinicSettings } from '../../shared/clinic/settings';
 import { assessInjury } from '../../shared/clinical/assess-injury';
 import { coldSchedule } from '../../shared/clinical/cold-schedule';
 import { isRemeasureDue } from '../../shared/clinical/remeasure';
+import { recheckStatus } from '../../shared/clinic/recheck';
 import { bodyRegionById, type BodyRegionId } from '../../shared/records/body-map';
 import type { InjuryCreate, InjuryUpdate, PhaseOverride } from '../../shared/records/injury';
 import type { MeasurementCreate } from '../../shared/records/measurement';
@@ -98,6 +99,33 @@ export function toInjuryView(
     assessment,
     lastMeasuredAt: lastMeasuredAt?.toISOString() ?? null,
     remeasureDue: injury.status === 'open' && isRemeasureDue(assessment.phase, lastMeasuredAt, now),
+    ...recheckAndClosure(injury, settings, names, now),
+  };
+}
+
+/** Staff named on an injury's record: the override's author, who set the re-check, who closed it. */
+function injuryStaffIds(injury: Injury): (string | null | undefined)[] {
+  return [injury.phaseOverride?.by, injury.recheckSetBy, injury.closure?.closedBy];
+}
+
+function recheckAndClosure(injury: Injury, settings: ClinicSettings, names: Map<string, string>, now: Date) {
+  const open = injury.status === 'open';
+  const closure = !open && injury.closure ? injury.closure : null;
+  return {
+    nextRecheckAt: open ? (injury.nextRecheckAt?.toISOString() ?? null) : null,
+    recheckStatus: recheckStatus(open ? (injury.nextRecheckAt ?? null) : null, now, settings.timeZone),
+    recheckSetByName: open && injury.recheckSetBy ? (names.get(injury.recheckSetBy) ?? null) : null,
+    reinjuryOfId: injury.reinjuryOfId ?? null,
+    closure: closure
+      ? {
+          closedAt: (injury.closedAt ?? injury.updatedAt).toISOString(),
+          closedByName: names.get(closure.closedBy) ?? null,
+          allMet: closure.allMet,
+          criteria: closure.criteria,
+          measurement: closure.measurement,
+          reason: closure.reason,
+        }
+      : null,
   };
 }
 
@@ -107,7 +135,7 @@ export async function getInjuryView(actor: SessionUser, injury: Injury): Promise
     Measurement.findAll({ where: { injuryId: injury.id }, order: [['takenAt', 'ASC']] }),
     getClinicSettings(actor.clinicId),
   ]);
-  const names = await staffNames([injury.phaseOverride?.by]);
+  const names = await staffNames(injuryStaffIds(injury));
   return toInjuryView(injury, athlete!, measurements, settings, names);
 }
 
@@ -118,7 +146,7 @@ export async function getInjuryDetail(actor: SessionUser, id: string): Promise<I
     Measurement.findAll({ where: { injuryId: injury.id }, order: [['takenAt', 'ASC']] }),
     getClinicSettings(actor.clinicId),
   ]);
-  const names = await staffNames([injury.phaseOverride?.by, ...measurements.map((m) => m.recordedBy)]);
+  const names = await staffNames([...injuryStaffIds(injury), ...measurements.map((m) => m.recordedBy)]);
   const latestSkinfold = [...measurements].reverse().find((m) => m.skinfoldMm !== null)?.skinfoldMm ?? null;
   return {
     injury: toInjuryView(injury, athlete!, measurements, settings, names),
@@ -153,7 +181,7 @@ export async function listInjuries(actor: SessionUser, filter: { status?: 'open'
   const athleteById = new Map(athletes.map((a) => [a.id, a]));
   const byInjury = new Map<string, Measurement[]>();
   for (const m of measurements) byInjury.set(m.injuryId, [...(byInjury.get(m.injuryId) ?? []), m]);
-  const names = await staffNames(injuries.map((i) => i.phaseOverride?.by));
+  const names = await staffNames(injuries.flatMap(injuryStaffIds));
   const now = new Date();
   return injuries.map((injury) => toInjuryView(injury, athleteById.get(injury.athleteId)!, byInjury.get(injury.id) ?? [], settings, names, now));
 }
@@ -200,22 +228,20 @@ export async function updateInjury(actor: SessionUser, id: string, input: Injury
   if (nextTreatment && nextTreatment < nextInjuredAt) {
     throw AppError.badRequest('Treatment start cannot be before the injury', { treatmentStartedAt: 'Treatment start cannot be before the injury' });
   }
-  const closing = status === 'closed' && injury.status !== 'closed';
-  const statusFields =
-    status === undefined
-      ? closedAt !== undefined
-        ? { closedAt: closedAt ? new Date(closedAt) : null }
-        : {}
-      : status === 'closed'
-        ? { status, closedAt: closedAt ? new Date(closedAt) : closing ? new Date() : injury.closedAt }
-        : { status, closedAt: null };
+  // Closing goes through the return-to-activity check (POST /close) and reopening through a re-injury, so
+  // an edit cannot skip them.
+  if (status !== undefined || closedAt !== undefined) {
+    const field = status !== undefined ? 'status' : 'closedAt';
+    throw AppError.badRequest('Close an injury through its return-to-activity check, or record a re-injury.', {
+      [field]: 'Use the closing check to close an injury',
+    });
+  }
   await Injury.sequelize!.transaction(async (transaction) => {
     await injury.update(
       {
         ...rest,
         ...(injuredAt ? { injuredAt: nextInjuredAt } : {}),
         ...(treatmentStartedAt !== undefined ? { treatmentStartedAt: nextTreatment } : {}),
-        ...statusFields,
         ...storedOverride(actor, phaseOverride),
       },
       { transaction },

@@ -10,3 +10,4 @@ export * from './girth';
 export * from './pain';
 export * from './assess-injury';
 export * from './remeasure';
+export * from './return-to-activity';

@@ -30,6 +30,11 @@ const athleteFields = {
     .optional()
     .describe("The athlete's address for home-care e-mails"),
   consentToTreatment: z.boolean({ error: 'Consent to treatment must be true or false' }).optional(),
+  guardianConsent: z
+    .object({ guardianName: boundedText('Guardian name', 120, 2).describe('The parent or guardian who consented') })
+    .nullable()
+    .optional()
+    .describe("A parent's or guardian's consent for an athlete under 18; recorded with who took it and when, null withdraws it"),
   notes: boundedText('Notes', 4000).nullable().optional(),
 };
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { phaseSchema } from '../phase';
+import { functionalTestIds } from '../clinical/return-to-activity';
 import { bodyRegionIdSchema, sideSchema } from './body-map';
 import { boundedText, isPresent, pastInstant } from './fields';
 
@@ -9,11 +10,27 @@ export const mechanismKindSchema = z.enum(mechanismKinds, {
 });
 export type MechanismKind = z.infer<typeof mechanismKindSchema>;
 
+/** Words for each mechanism, one place for the server's printouts and any screen. */
+export const mechanismKindLabels: Record<MechanismKind, string> = {
+  'knee-to-thigh': 'Knee to thigh',
+  ball: 'Ball',
+  'stick-or-bat': 'Stick or bat',
+  fall: 'Fall',
+  collision: 'Collision',
+  other: 'Other',
+};
+
 export const haematomaTypes = ['intramuscular', 'intermuscular', 'not-known'] as const;
 export const haematomaTypeSchema = z.enum(haematomaTypes, {
   error: `Haematoma type must be one of: ${haematomaTypes.join(', ')}`,
 });
 export type HaematomaType = z.infer<typeof haematomaTypeSchema>;
+
+export const haematomaTypeLabels: Record<HaematomaType, string> = {
+  intramuscular: 'Intramuscular',
+  intermuscular: 'Intermuscular',
+  'not-known': 'Not known yet',
+};
 
 export const injuryStatuses = ['open', 'closed'] as const;
 export const injuryStatusSchema = z.enum(injuryStatuses, { error: 'Status must be open or closed' });
@@ -102,3 +119,29 @@ export const injuryUpdateSchema = z
     }
   });
 export type InjuryUpdate = z.infer<typeof injuryUpdateSchema>;
+
+/** POST /api/injuries/:id/close: the functional tests passed, and a reason when a criterion is unmet. */
+export const injuryCloseSchema = z.object({
+  passedTests: z
+    .array(z.enum(functionalTestIds, { error: `Functional test must be one of: ${functionalTestIds.join(', ')}` }))
+    .max(functionalTestIds.length)
+    .default([])
+    .describe('Functional tests the therapist performed and the athlete passed'),
+  reason: boundedText('Reason', 1000)
+    .optional()
+    .transform((value) => (value ? value : undefined))
+    .describe('Why the injury is closed although a criterion is unmet; required then'),
+  closedAt: pastInstant('Closed date and time').optional().describe('When the athlete returned to full function; now when omitted'),
+});
+export type InjuryClose = z.infer<typeof injuryCloseSchema>;
+export type InjuryCloseInput = z.input<typeof injuryCloseSchema>;
+
+/** POST /api/injuries/:id/reinjury: a new blow to the same site after the episode was closed. */
+export const reinjurySchema = z.object({
+  mechanismKind: mechanismKindSchema,
+  mechanism: injuryFields.mechanism,
+  injuredAt: injuryFields.injuredAt,
+  haematomaType: haematomaTypeSchema.default('not-known'),
+});
+export type Reinjury = z.infer<typeof reinjurySchema>;
+export type ReinjuryInput = z.input<typeof reinjurySchema>;

@@ -1,6 +1,8 @@
 import type { InjuryAssessment } from '../clinical/assess-injury';
 import type { ColdSchedule } from '../clinical/cold-schedule';
 import type { Phase } from '../phase';
+import type { RecheckStatus } from '../clinic/recheck';
+import type { CriterionResult } from '../clinical/return-to-activity';
 
 /** What the API sends back for records: one definition for server and client. */
 export interface AthleteView {
@@ -13,6 +15,10 @@ export interface AthleteView {
   consentToTreatment: boolean;
   consentRecordedAt: string | null;
   consentRecordedByName: string | null;
+  /** A parent's or guardian's consent (athletes under 18 need one before a run). Always sent by the API; optional for older fixtures. */
+  guardianConsent?: { guardianName: string; recordedAt: string; recordedByName: string | null } | null;
+  /** Under 18 by year of birth, in the clinic's zone. */
+  needsGuardianConsent?: boolean;
   notes: string | null;
   createdAt: string;
   openInjuries?: number;
@@ -62,6 +68,24 @@ export interface InjuryView {
   assessment: InjuryAssessment;
   lastMeasuredAt: string | null;
   remeasureDue: boolean;
+  /** The next re-check; suggested after each run from the phase, or set by a therapist. The fields below are always sent by the API. */
+  nextRecheckAt?: string | null;
+  recheckStatus?: RecheckStatus;
+  /** Null when Mendstep suggested it after a run. */
+  recheckSetByName?: string | null;
+  /** The earlier episode this injury is a re-injury of. */
+  reinjuryOfId?: string | null;
+  closure?: InjuryClosureView | null;
+}
+
+/** How an injury was closed: the return-to-activity check as it stood, and the reason for any unmet criterion. */
+export interface InjuryClosureView {
+  closedAt: string;
+  closedByName: string | null;
+  allMet: boolean;
+  criteria: CriterionResult[];
+  measurement: { id: string | null; takenAt: string } | null;
+  reason: string | null;
 }
 
 export interface InjuryDetailView {

@@ -184,7 +184,7 @@ describe('injuries and measurements', () => {
     expect(cleared.body.injury.phaseIsOverride).toBe(false);
   });
 
-  it('lists open injuries for Today with a re-measure flag, and closing removes one from the list', async () => {
+  it('lists open injuries for Today with a re-measure flag, and closing (through its check) removes one from the list', async () => {
     const athlete = await newAthlete();
     const injury = await newThighInjury(athlete.id);
     let list = await therapist.get('/api/injuries');
@@ -192,7 +192,11 @@ describe('injuries and measurements', () => {
     expect(listed.remeasureDue).toBe(true);
     expect(listed.athleteName).toBe('Rowan Tesk');
 
-    const closed = await therapist.patch(`/api/injuries/${injury.id}`).send({ status: 'closed' });
+    // An edit cannot close it: closing goes through the return-to-activity check.
+    const bypass = await therapist.patch(`/api/injuries/${injury.id}`).send({ status: 'closed' });
+    expect(bypass.status).toBe(400);
+    expect(bypass.body.error.fields).toHaveProperty('status');
+    const closed = await therapist.post(`/api/injuries/${injury.id}/close`).send({ passedTests: [], reason: 'Athlete moved to another club' });
     expect(closed.status).toBe(200);
     expect(closed.body.injury.closedAt).toEqual(expect.any(String));
     list = await therapist.get('/api/injuries');

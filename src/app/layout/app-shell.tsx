@@ -33,7 +33,9 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
           <div className="flex items-center gap-3 text-sm">
             <span>
               <span className="font-semibold" data-testid="signed-in-user">{user.name}</span>
-              <span className="text-ink-muted"> · {roleWord[user.role]}{user.clinicName ? ` · ${user.clinicName}` : ''}</span>
+              <span className="text-ink-muted"> · {roleWord[user.role]}</span>
+              {/* The clinic's name only where there is room: the menu must stay on one line on a tablet. */}
+              {user.clinicName ? <span className="hidden text-ink-muted xl:inline"> · {user.clinicName}</span> : null}
             </span>
             <button
               type="button"

@@ -7,5 +7,10 @@ export const navItems: NavItem[] = [
   { to: '/today', label: 'Today', roles: ['therapist', 'supervisor'] },
   { to: '/athletes', label: 'Athletes', roles: ['therapist', 'supervisor'] },
   { to: '/review', label: 'Review desk', roles: ['supervisor', 'admin'] },
+  { to: '/sequences', label: 'Sequences', roles: ['supervisor'] },
   { to: '/staff', label: 'Staff', roles: ['admin'] },
+  { to: '/settings', label: 'Settings', roles: ['admin'] },
+  { to: '/audit', label: 'Audit', roles: ['admin', 'supervisor'] },
+  // The local mailbox: outside production only (in production /api/mailbox answers 404 and the page says so).
+  { to: '/mailbox', label: 'Mailbox', roles: ['admin'] },
 ];

@@ -1,4 +1,5 @@
 import { RequireAuth } from '../../features/auth/components/require-auth';
+import { ReviewDesk } from '../../features/review/components/review-desk';
 import { AppShell } from '../layout/app-shell';
 
 export function ReviewRoute() {
@@ -7,7 +8,8 @@ export function ReviewRoute() {
       {(user) => (
         <AppShell user={user}>
           <h1 className="text-2xl font-semibold">Review desk</h1>
-          <p className="mt-2 text-ink-muted">Completed runs waiting for review at {user.clinicName ?? 'your clinic'} appear here.</p>
+          <p className="mb-4 text-ink-muted">What was done at the table at {user.clinicName ?? 'your clinic'}: open a run to read it step by step and sign off its note.</p>
+          <ReviewDesk />
         </AppShell>
       )}
     </RequireAuth>

@@ -30,6 +30,9 @@ function Screening({ runId }: { runId: string }) {
           </h2>
           <p className="text-lg">{view.message ?? 'A red flag was found. Do not treat; refer the athlete to a physician now.'}</p>
           <p>The run is recorded as stopped and referred, and your supervisor can see it on the review desk.</p>
+          <Link to={`/injuries/${view.injuryId}/referral?runId=${view.id}`} className="inline-flex min-h-target items-center self-start rounded-lg bg-ink px-4 font-medium text-paper">
+            Referral summary for the physician
+          </Link>
           <Link to={`/injuries/${view.injuryId}`} className="underline">
             Back to the injury
           </Link>

@@ -1,4 +1,4 @@
-import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { homePathByRole } from '../../../shared/auth/roles';
 import { useMe } from '../../features/auth/api/get-me';
 import { SignInForm } from '../../features/auth/components/sign-in-form';
@@ -22,6 +22,9 @@ export function SignInRoute() {
         <h1 className="text-3xl font-bold tracking-tight">Mendstep</h1>
         <p className="mb-6 mt-1 text-ink-muted">Guided contusion care at the treatment table. Sign in to continue.</p>
         <SignInForm onSignedIn={(user) => navigate(next ?? homePathByRole[user.role], { replace: true })} />
+        <Link to="/forgot-password" className="mt-4 inline-flex min-h-target items-center font-medium underline underline-offset-4">
+          Forgot your password?
+        </Link>
       </div>
     </main>
   );

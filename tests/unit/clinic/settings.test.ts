@@ -1,4 +1,5 @@
 import {
+  settingsBodySchema,
   clinicSettingDefaultSources,
   clinicSettingsSchema,
   clinicSettingsUpdateSchema,
@@ -49,5 +50,25 @@ describe('clinic settings', () => {
     expect(clinicSettingsUpdateSchema.parse({ coldProtocol: 'intermittent-10-10-10' })).toEqual({
       coldProtocol: 'intermittent-10-10-10',
     });
+  });
+
+  it('has re-check intervals per phase as labelled clinic defaults of ours', () => {
+    // Clinic defaults of ours, the same as the re-measure intervals (shared/clinical/remeasure.ts); no published interval.
+    expect(defaultClinicSettings.recheckIntervalHours).toEqual({ acute: 24, proliferative: 72, remodelling: 168 });
+    expect(clinicSettingDefaultSources.recheckIntervalHours).toMatch(/clinic default of ours/);
+    expect(issuesOf(clinicSettingsSchema.safeParse({ recheckIntervalHours: { acute: 0.5, proliferative: 72, remodelling: 400 } })).map((i) => i.path)).toEqual([
+      'recheckIntervalHours.acute',
+      'recheckIntervalHours.remodelling',
+    ]);
+  });
+
+  it('takes an empty contact telephone as none, and refuses letters in it and a malformed contact e-mail', () => {
+    expect(clinicSettingsUpdateSchema.parse({ contactPhone: '  ' })).toEqual({ contactPhone: null });
+    expect(issuesOf(clinicSettingsUpdateSchema.safeParse({ contactPhone: 'call Jo', contactEmail: 'desk@' })).map((i) => i.path).sort()).toEqual(['contactEmail', 'contactPhone']);
+  });
+
+  it('refuses a settings body that changes nothing, and a one-letter clinic name', () => {
+    expect(settingsBodySchema.safeParse({}).success).toBe(false);
+    expect(issuesOf(settingsBodySchema.safeParse({ clinicName: 'X' }))[0].path).toBe('clinicName');
   });
 });

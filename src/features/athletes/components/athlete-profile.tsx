@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { useUpdateAthlete } from '../api/update-athlete';
 import { AthleteForm } from './athlete-form';
 import { ConsentPanel } from './consent-panel';
+import { GuardianConsentPanel } from './guardian-consent-panel';
 
 export function AthleteProfile({ athlete }: { athlete: AthleteView }) {
   const [editing, setEditing] = useState(false);
@@ -41,6 +42,7 @@ export function AthleteProfile({ athlete }: { athlete: AthleteView }) {
         )}
       </section>
       <ConsentPanel athlete={athlete} />
+      <GuardianConsentPanel athlete={athlete} />
     </div>
   );
 }

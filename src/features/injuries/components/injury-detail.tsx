@@ -1,5 +1,6 @@
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { ArrowLeft, ClipboardList, Play, Ruler } from 'lucide-react';
+import { ArrowLeft, ClipboardList, FileText, Play, Ruler } from 'lucide-react';
 import type { InjuryDetailView } from '../../../../shared/records/responses';
 import { ApiError } from '../../../lib/api-client';
 import { useInjury } from '../api/get-injury';
@@ -18,7 +19,8 @@ import { ProgressCard } from './progress-card';
 import { haematomaWords, mechanismWords } from './record-injury-form';
 import { SeverityCard } from './severity-card';
 
-export function InjuryDetail({ injuryId }: { injuryId: string }) {
+/** `operations`: the re-check and closing panels, composed in by the route (features do not import each other). */
+export function InjuryDetail({ injuryId, operations }: { injuryId: string; operations?: ReactNode }) {
   const detail = useInjury(injuryId);
   if (detail.isPending) return <p className="text-ink-muted">Loading the injury…</p>;
   if (detail.isError) {
@@ -33,10 +35,10 @@ export function InjuryDetail({ injuryId }: { injuryId: string }) {
       </div>
     );
   }
-  return <InjuryPage detail={detail.data} />;
+  return <InjuryPage detail={detail.data} operations={operations} />;
 }
 
-function InjuryPage({ detail }: { detail: InjuryDetailView }) {
+function InjuryPage({ detail, operations }: { detail: InjuryDetailView; operations?: ReactNode }) {
   const { injury, athlete, measurements, coldSchedule } = detail;
   const lastGirth = [...measurements].reverse().find((m) => m.girthLandmark !== null);
   const open = injury.status === 'open';
@@ -65,14 +67,21 @@ function InjuryPage({ detail }: { detail: InjuryDetailView }) {
             {injury.remeasureDue && open ? <strong className="text-ember-700"> · Re-measure due</strong> : null}
           </p>
         </div>
-        {open ? (
-          <Link to={`/runs/new?injuryId=${encodeURIComponent(injury.id)}`} className={linkButtonClass.primary}>
-            <Play aria-hidden className="h-4 w-4" /> Start a run
+        <div className="flex flex-wrap gap-2">
+          <Link to={`/injuries/${injury.id}/referral`} className={linkButtonClass.secondary}>
+            <FileText aria-hidden className="h-4 w-4" /> Referral summary
           </Link>
-        ) : null}
+          {open ? (
+            <Link to={`/runs/new?injuryId=${encodeURIComponent(injury.id)}`} className={linkButtonClass.primary}>
+              <Play aria-hidden className="h-4 w-4" /> Start a run
+            </Link>
+          ) : null}
+        </div>
       </header>
 
       <RedFlagsBanner />
+
+      {operations}
 
       {/* Columns rather than a grid: the cards differ a lot in height, and rows would leave holes. */}
       <div className="columns-1 gap-4 md:columns-2 xl:columns-3 [&>*]:mb-4 [&>*]:break-inside-avoid">

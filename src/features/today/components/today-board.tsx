@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
-import { Dumbbell, Play, Ruler, Snowflake, Sprout, UserPlus, type LucideIcon } from 'lucide-react';
+import { AlarmClock, CalendarClock, Dumbbell, Play, Ruler, Snowflake, Sprout, UserPlus, type LucideIcon } from 'lucide-react';
+import { orderForToday } from '../../../../shared/clinic/recheck';
 import type { Phase } from '../../../../shared/phase';
 import type { InjuryView } from '../../../../shared/records/responses';
 import { Notice } from '../../../components/ui/notice';
@@ -25,14 +26,23 @@ function measuredAgo(iso: string) {
   return hours < 48 ? `${hours} h ago` : `${Math.round(hours / 24)} days ago`;
 }
 
+const recheckTime = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+
 export function TodayBoard() {
   const injuries = useOpenInjuries();
+  // Due and overdue re-checks lead the day's list.
+  const ordered = injuries.data ? orderForToday(injuries.data) : [];
+  const dueCount = ordered.filter((i) => i.recheckStatus === 'due' || i.recheckStatus === 'overdue').length;
 
   return (
     <div className="flex flex-col gap-4">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <p className="text-ink-soft" role="status">
-          {injuries.isPending ? 'Loading open injuries…' : injuries.isSuccess ? `${injuries.data.length} open ${injuries.data.length === 1 ? 'injury' : 'injuries'}` : ''}
+          {injuries.isPending
+            ? 'Loading open injuries…'
+            : injuries.isSuccess
+              ? `${injuries.data.length} open ${injuries.data.length === 1 ? 'injury' : 'injuries'}${dueCount ? ` · ${dueCount} ${dueCount === 1 ? 're-check' : 're-checks'} due, listed first` : ''}`
+              : ''}
         </p>
         <Link to="/athletes?new=1" className={linkClass.secondary}>
           <UserPlus aria-hidden className="h-4 w-4" /> Register an athlete
@@ -54,7 +64,7 @@ export function TodayBoard() {
       ) : null}
       {injuries.isSuccess && injuries.data.length > 0 ? (
         <ul className="grid gap-3 md:grid-cols-2 xl:grid-cols-3" aria-label="Open injuries">
-          {injuries.data.map((injury) => (
+          {ordered.map((injury) => (
             <TodayCard key={injury.id} injury={injury} />
           ))}
         </ul>
@@ -84,6 +94,19 @@ function TodayCard({ injury }: { injury: InjuryView }) {
         <dd>day {injury.assessment.daysSinceInjury}</dd>
         <dt className="text-ink-muted">Severity</dt>
         <dd>{injury.severity ? `${gradeWord[injury.severity.grade]} (${injury.severity.kneeFlexionDeg}° knee flexion)` : 'Not graded'}</dd>
+        <dt className="text-ink-muted">Re-check</dt>
+        <dd>
+          {injury.recheckStatus === 'overdue' ? (
+            <strong className="inline-flex items-center gap-1 text-ember-700">
+              <AlarmClock aria-hidden className="h-4 w-4" /> Overdue
+            </strong>
+          ) : injury.recheckStatus === 'due' ? (
+            <strong className="inline-flex items-center gap-1 text-tide-700">
+              <CalendarClock aria-hidden className="h-4 w-4" /> Due today
+            </strong>
+          ) : null}
+          {injury.nextRecheckAt ? ` ${recheckTime.format(new Date(injury.nextRecheckAt))}` : 'not set'}
+        </dd>
         <dt className="text-ink-muted">Measured</dt>
         <dd>
           {injury.lastMeasuredAt ? measuredAgo(injury.lastMeasuredAt) : 'not yet'}

@@ -1,0 +1,4 @@
+export const noteKeys = {
+  all: ['notes'] as const,
+  detail: (runId: string) => [...noteKeys.all, 'detail', runId] as const,
+};

@@ -1,0 +1,4 @@
+export const sequenceKeys = {
+  all: ['sequences'] as const,
+  current: () => [...sequenceKeys.all, 'current'] as const,
+};
