@@ -133,7 +133,8 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
   const api = express.Router();
   api.use(doubleCsrfProtection);
   api.get('/health', (_req, res) => {
-    res.json({ ok: true });
+    // `mailbox` tells the client whether to offer the local mailbox (never in production).
+    res.json({ ok: true, mailbox: config.env !== 'production' });
   });
   api.use('/auth', authRoutes(config, generateCsrfToken));
   api.use('/auth', passwordRoutes(config));

@@ -103,6 +103,8 @@ describe('sign-in', () => {
       const cookies = ([] as string[]).concat(res.headers['set-cookie'] ?? []);
       expect(cookies.find((c) => c.startsWith('mendstep.sid='))).toMatch(/Secure/);
       expect(res.headers['strict-transport-security']).toBeDefined();
+      // The local mailbox is never offered in production.
+      expect((await agent.get('/api/health').set('X-Forwarded-Proto', 'https')).body).toEqual({ ok: true, mailbox: false });
     } finally {
       await prod.pool.end();
     }
@@ -153,6 +155,7 @@ describe('rate limit', () => {
 describe('security headers', () => {
   it('sends a Content-Security-Policy that allows only our own origin for scripts', async () => {
     const res = await request(app).get('/api/health');
+    expect(res.body.mailbox).toBe(true);
     expect(res.headers['content-security-policy']).toMatch(/script-src 'self'/);
     expect(res.headers['content-security-policy']).not.toMatch(/upgrade-insecure-requests/);
     expect(res.headers['x-request-id']).toEqual(expect.any(String));
