@@ -103,7 +103,10 @@ export function RunsTable({ query, onChange }: { query: ReviewRunsQuery; onChang
           Runs
         </h2>
         <p className="text-sm text-ink-muted" role="status" aria-live="polite">
-          {runs.isPending ? 'Loading…' : `${first}–${last} of ${total} ${total === 1 ? 'run' : 'runs'}`}
+          {runs.isPending
+            ? 'Loading…'
+            : // Past 1,000 further runs the server stops counting: say "more than" rather than a wrong number.
+              `${first}–${last} of ${runs.data?.totalExact === false ? 'more than ' : ''}${total.toLocaleString('en-GB')} ${total === 1 ? 'run' : 'runs'}`}
           {runs.isFetching && !runs.isPending ? ' · updating…' : ''}
         </p>
         <a
