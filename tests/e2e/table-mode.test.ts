@@ -35,8 +35,14 @@ async function newInjury(page: Page, name: string, days: number) {
   return injury.id;
 }
 
-async function openTableMode(page: Page, injuryId: string) {
-  await page.goto(`${server.baseUrl}/runs/new?injuryId=${injuryId}`);
+async function openTableMode(page: Page, injuryId: string, fromToday?: string) {
+  if (fromToday) {
+    // As a therapist would: from the injury's card on Today.
+    await page.goto(`${server.baseUrl}/today`);
+    await page.getByRole('link', { name: new RegExp(`^Start a run for ${fromToday}`) }).click();
+  } else {
+    await page.goto(`${server.baseUrl}/runs/new?injuryId=${injuryId}`);
+  }
   await page.waitForURL(/\/runs\/[0-9a-f-]+\/screening$/);
   await page.getByRole('button', { name: 'Save screening and review the plan' }).click();
   await page.getByRole('link', { name: 'Open table mode' }).click();
@@ -58,10 +64,12 @@ async function therapistPage(): Promise<{ context: BrowserContext; page: Page }>
 type Entry = { key: string; type: string; seq: number | null; stepIndex: number | null };
 
 describe('table mode in Chromium at 1280×800', () => {
-  it('plays a proliferative run step to step with cues, resumes the same step after a reload, and falls back to cold on swelling', async () => {
+  it('starts a proliferative run from Today and plays it step to step with cues, resumes the same step after a reload, and falls back to cold on swelling', async () => {
     const { context, page } = await therapistPage();
-    const injuryId = await newInjury(page, 'Tova Rennick', 10);
-    const runId = await openTableMode(page, injuryId);
+    // A name of its own, so the card is this test's even on a database other runs have used.
+    const name = `Tova Rennick ${Date.now().toString(36)}`;
+    const injuryId = await newInjury(page, name, 10);
+    const runId = await openTableMode(page, injuryId, name);
 
     await expect(page.getByTestId('step-label').textContent()).resolves.toBe('Ice massage');
     await screenshot(page, 'table-mode-ice-massage');
