@@ -128,4 +128,31 @@ describe('table mode in Chromium at 1280×800', () => {
     expect(detail.entries.map((e) => e.seq)).toEqual([1, 2]);
     await context.close();
   });
+
+  it("a tablet that lost its storage rebuilds the run from the server's log and resumes the same step", async () => {
+    const { context, page } = await therapistPage();
+    const injuryId = await newInjury(page, `Wren Okoro ${Date.now().toString(36)}`, 10);
+    await openTableMode(page, injuryId);
+    await page.clock.runFor(360_000 + 1_000);
+    await page.getByTestId('step-label').getByText('Light centre-out strokes').waitFor();
+    await page.getByText('All saved').waitFor();
+
+    // Leave table mode so nothing holds the database open, then wipe the tablet's storage.
+    const tableUrl = page.url();
+    await page.goto(`${server.baseUrl}/today`);
+    const wiped = await page.evaluate(
+      () =>
+        new Promise<string>((resolve) => {
+          const request = indexedDB.deleteDatabase('mendstep-table');
+          request.onsuccess = () => resolve('deleted');
+          request.onerror = () => resolve('error');
+          request.onblocked = () => resolve('blocked');
+        }),
+    );
+    expect(wiped).toBe('deleted');
+    await page.goto(tableUrl);
+    await page.getByTestId('step-label').getByText('Light centre-out strokes').waitFor();
+    expect(await page.getByRole('button', { name: 'Begin' }).count()).toBe(0);
+    await context.close();
+  });
 });
