@@ -1,24 +1,13 @@
 import { randomUUID } from 'node:crypto';
 import { DateTime } from 'luxon';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { coldSchedule } from '../../shared/clinical/cold-schedule';
-import { launchBrowser, screenshot, signIn, startServer, watchConsole } from '../support/e2e';
+import { screenshot, signIn, useServerAndBrowser, watchConsole } from '../support/e2e';
 import { waitForMail } from '../support/smtp-harness';
 import { readIcs } from '../support/smtp-ics';
 
-let server: Awaited<ReturnType<typeof startServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const env = useServerAndBrowser();
 
 /** Calls the API from inside the signed-in page, with the CSRF token, as the app itself does. */
 async function api<T>(page: Page, method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<T> {
@@ -44,9 +33,9 @@ const png = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR
 
 describe('e-mail and photos in Chromium at 1280×800', () => {
   it('after an acute run completes, the home-care plan with a valid .ics is in the mailbox, and the admin reads it on /mailbox', async () => {
-    const therapist = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    const therapist = await env.browser.newPage({ viewport: { width: 1280, height: 800 } });
     const errors = watchConsole(therapist);
-    await signIn(therapist, server.baseUrl, 'therapist@mendstep.test');
+    await signIn(therapist, env.server.baseUrl, 'therapist@mendstep.test');
     await therapist.waitForURL('**/today');
 
     const email = `e2e-${randomUUID().slice(0, 8)}@example.org`;
@@ -90,7 +79,7 @@ describe('e-mail and photos in Chromium at 1280×800', () => {
 
     // A photo of the bruise on the injury page, under its measurement's date.
     await api(therapist, 'POST', `/api/injuries/${injury.id}/measurements`, { takenAt: new Date(Date.now() - 60_000).toISOString(), painNprs: 5, bruiseLengthCm: 8, bruiseWidthCm: 5 });
-    await therapist.goto(`${server.baseUrl}/injuries/${injury.id}`);
+    await therapist.goto(`${env.server.baseUrl}/injuries/${injury.id}`);
     await therapist.getByLabel(/^Photo \(JPEG/).setInputFiles({ name: 'bruise.png', mimeType: 'image/png', buffer: png });
     await therapist.getByRole('button', { name: 'Add photo' }).click();
     await therapist.getByRole('status').getByText(/Photo added/).waitFor();
@@ -105,9 +94,9 @@ describe('e-mail and photos in Chromium at 1280×800', () => {
     await screenshot(therapist, 'injury-photos');
     await therapist.close();
 
-    const admin = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    const admin = await env.browser.newPage({ viewport: { width: 1280, height: 800 } });
     errors.push(...watchConsole(admin));
-    await signIn(admin, server.baseUrl, 'admin@mendstep.test');
+    await signIn(admin, env.server.baseUrl, 'admin@mendstep.test');
     await admin.waitForURL('**/staff');
     await admin.getByRole('link', { name: 'Mailbox' }).click();
     await admin.waitForURL('**/mailbox');
@@ -125,8 +114,8 @@ describe('e-mail and photos in Chromium at 1280×800', () => {
   });
 
   it('an invited colleague sets a password from the e-mailed link, and a forgotten password is reset from the sign-in page', async () => {
-    const admin = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-    await signIn(admin, server.baseUrl, 'admin@mendstep.test');
+    const admin = await env.browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await signIn(admin, env.server.baseUrl, 'admin@mendstep.test');
     await admin.waitForURL('**/staff');
     const email = `invited-${randomUUID().slice(0, 8)}@example.org`;
     const invited = await api<{ member: { active: boolean } }>(admin, 'POST', '/api/staff/invitations', { name: 'Keir Ashdown', email, role: 'therapist' });
@@ -134,8 +123,8 @@ describe('e-mail and photos in Chromium at 1280×800', () => {
     await admin.close();
 
     const [invitation] = await waitForMail(email);
-    const visitor = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-    await visitor.goto(`${server.baseUrl}${linkPath(invitation.text)}`);
+    const visitor = await env.browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await visitor.goto(`${env.server.baseUrl}${linkPath(invitation.text)}`);
     await visitor.getByText('Welcome, Keir Ashdown.').waitFor();
     await visitor.getByLabel('New password', { exact: true }).fill('short');
     await visitor.getByLabel('New password again').fill('different');
@@ -147,7 +136,7 @@ describe('e-mail and photos in Chromium at 1280×800', () => {
     await visitor.getByLabel('New password again').fill('copper-tide-lantern');
     await visitor.getByRole('button', { name: 'Set password' }).click();
     await visitor.getByRole('link', { name: 'Sign in' }).click();
-    await signIn(visitor, server.baseUrl, email, 'copper-tide-lantern');
+    await signIn(visitor, env.server.baseUrl, email, 'copper-tide-lantern');
     await visitor.waitForURL('**/today');
     await visitor.getByRole('button', { name: 'Sign out' }).click();
     await visitor.waitForURL('**/sign-in');
@@ -159,7 +148,7 @@ describe('e-mail and photos in Chromium at 1280×800', () => {
     await screenshot(visitor, 'forgot-password-sent');
     const [, reset] = await waitForMail(email, 2);
     expect(reset.subject).toBe('Reset your Mendstep password');
-    await visitor.goto(`${server.baseUrl}${linkPath(reset.text)}`);
+    await visitor.goto(`${env.server.baseUrl}${linkPath(reset.text)}`);
     await visitor.getByLabel('New password', { exact: true }).fill('harbour-moss-evening');
     await visitor.getByLabel('New password again').fill('harbour-moss-evening');
     await visitor.getByRole('button', { name: 'Set password' }).click();
@@ -167,7 +156,7 @@ describe('e-mail and photos in Chromium at 1280×800', () => {
     // The link is used up.
     await visitor.reload();
     await visitor.getByText('This link cannot be used').waitFor();
-    await signIn(visitor, server.baseUrl, email, 'harbour-moss-evening');
+    await signIn(visitor, env.server.baseUrl, email, 'harbour-moss-evening');
     await visitor.waitForURL('**/today');
     await visitor.close();
   });

@@ -1,19 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, screenshot, signIn, startServer, watchConsole } from '../support/e2e';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { screenshot, signIn, useServerAndBrowser, watchConsole } from '../support/e2e';
 
-let server: Awaited<ReturnType<typeof startServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const env = useServerAndBrowser();
 
 /** A datetime-local value `hours` ago in the page's own zone, as a therapist would type it on the tablet. */
 function localInputHoursAgo(page: Page, hours: number) {
@@ -33,12 +22,12 @@ async function addMeasurement(page: Page, values: Record<string, string>) {
 
 describe('records in Chromium at 1280×800', () => {
   it('a therapist registers an athlete, records a thigh contusion on the body map, measures it twice and sees what Mendstep makes of it', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const context = await env.browser.newContext({ viewport: { width: 1280, height: 800 } });
     const page = await context.newPage();
     const errors = watchConsole(page);
     const name = `Rowan Tesk ${Date.now().toString(36)}`;
 
-    await signIn(page, server.baseUrl, 'therapist@mendstep.test');
+    await signIn(page, env.server.baseUrl, 'therapist@mendstep.test');
     await page.waitForURL('**/today');
 
     // Register the athlete from the Athletes screen.

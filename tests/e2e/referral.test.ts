@@ -1,36 +1,24 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
-import { launchBrowser, screenshot, signIn, startServer, watchConsole } from '../support/e2e';
+import { screenshot, signIn, useServerAndBrowser, watchConsole } from '../support/e2e';
 
-let server: Awaited<ReturnType<typeof startServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const env = useServerAndBrowser();
 
 const hoursAgo = (h: number) => new Date(Date.now() - h * 3_600_000).toISOString();
 
 describe('referral summary in Chromium', () => {
   it('a red flag at screening leads to a one-page referral whose PDF names the athlete and the red flag', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const context = await env.browser.newContext({ viewport: { width: 1280, height: 800 } });
     const page = await context.newPage();
     const errors = watchConsole(page);
     // The second demo clinic's therapist: this test's records stay out of the main demo clinic's screens.
-    await signIn(page, server.baseUrl, 'therapist@other.mendstep.test');
+    await signIn(page, env.server.baseUrl, 'therapist@other.mendstep.test');
     await page.waitForURL('**/today');
 
     // The records come through the API with the page's own session, as the screens would send them.
-    const token = (await (await page.request.get(`${server.baseUrl}/api/auth/csrf`)).json()).token as string;
+    const token = (await (await page.request.get(`${env.server.baseUrl}/api/auth/csrf`)).json()).token as string;
     const post = async (url: string, data: object) => {
-      const res = await page.request.post(`${server.baseUrl}${url}`, { data, headers: { 'X-CSRF-Token': token } });
+      const res = await page.request.post(`${env.server.baseUrl}${url}`, { data, headers: { 'X-CSRF-Token': token } });
       expect(res.status(), url).toBeLessThan(300);
       return res.json();
     };
@@ -47,7 +35,7 @@ describe('referral summary in Chromium', () => {
     await post(`/api/injuries/${injury.id}/measurements`, { takenAt: hoursAgo(2), kneeFlexionDeg: 75, painNprs: 8, girthInjuredCm: 56, girthOtherCm: 53, girthLandmark: 'superior pole of patella', girthDistanceCm: 15 });
 
     // Screening with a red flag stops the run before it starts.
-    await page.goto(`${server.baseUrl}/runs/new?injuryId=${injury.id}`);
+    await page.goto(`${env.server.baseUrl}/runs/new?injuryId=${injury.id}`);
     await page.waitForURL(/\/runs\/[0-9a-f-]{36}\/screening$/);
     await page.getByLabel('Pain out of proportion to the injury').check();
     await page.getByRole('button', { name: 'Record stop and refer' }).click();

@@ -1,20 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
 import { v4 as uuid } from 'uuid';
-import { launchBrowser, screenshot, signIn, startServer, watchConsole } from '../support/e2e';
+import { screenshot, signIn, useServerAndBrowser, watchConsole } from '../support/e2e';
 
-let server: Awaited<ReturnType<typeof startServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const env = useServerAndBrowser();
 
 /** Calls the API from inside the signed-in page, with the CSRF token, as the app itself does. */
 async function api<T>(page: Page, method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<{ status: number; body: T }> {
@@ -29,9 +18,9 @@ async function api<T>(page: Page, method: string, path: string, body?: unknown, 
 }
 
 async function signedIn(email: string, home: string): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+  const context = await env.browser.newContext({ viewport: { width: 1280, height: 800 } });
   const page = await context.newPage();
-  await signIn(page, server.baseUrl, email);
+  await signIn(page, env.server.baseUrl, email);
   await page.waitForURL(`**${home}`);
   return { context, page };
 }
@@ -155,7 +144,7 @@ describe('the review desk in Chromium at 1280×800', () => {
     await screenshot(page, 'review-run-signed');
 
     // The CSV of the filtered runs: a header row of the agreed columns, and the run in it.
-    const csv = await context.request.get(`${server.baseUrl}${csvHref}`);
+    const csv = await context.request.get(`${env.server.baseUrl}${csvHref}`);
     expect(csv.status()).toBe(200);
     expect(csv.headers()['content-type']).toContain('text/csv');
     const text = (await csv.text()).replace(/^\uFEFF/, '');
@@ -169,7 +158,7 @@ describe('the review desk in Chromium at 1280×800', () => {
     expect(errors).toEqual([]);
 
     // The therapist's summary now shows the note locked, with the sign-off.
-    await therapist.page.goto(`${server.baseUrl}/runs/${runId}/summary`);
+    await therapist.page.goto(`${env.server.baseUrl}/runs/${runId}/summary`);
     const own = therapist.page.getByRole('region', { name: /Session note/ });
     await own.getByTestId('note-signed').waitFor();
     await expect(own.getByTestId('note-status').textContent()).resolves.toContain('Signed — locked');

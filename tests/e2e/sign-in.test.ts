@@ -1,19 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshot, signIn, startServer, watchConsole } from '../support/e2e';
+import { describe, expect, it } from 'vitest';
+import { screenshot, signIn, useServerAndBrowser, watchConsole } from '../support/e2e';
 
-let server: Awaited<ReturnType<typeof startServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const env = useServerAndBrowser();
 
 const demoUsers = [
   { email: 'therapist@mendstep.test', home: '/today', heading: 'Today', name: 'Tamsin Ruel' },
@@ -24,12 +12,12 @@ const demoUsers = [
 describe('signing in in Chromium at 1280×800', () => {
   for (const user of demoUsers) {
     it(`the demo ${user.heading.toLowerCase()} user lands on their home with no console or CSP errors`, async () => {
-      const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+      const context = await env.browser.newContext({ viewport: { width: 1280, height: 800 } });
       const page = await context.newPage();
       const errors = watchConsole(page);
-      await page.goto(`${server.baseUrl}/`);
+      await page.goto(`${env.server.baseUrl}/`);
       await page.waitForURL(/\/sign-in\?next=/);
-      await signIn(page, server.baseUrl, user.email);
+      await signIn(page, env.server.baseUrl, user.email);
       await page.waitForURL(`**${user.home}`);
       await page.getByRole('heading', { level: 1, name: user.heading }).waitFor();
       await expect(page.getByTestId('signed-in-user').textContent()).resolves.toBe(user.name);
@@ -43,9 +31,9 @@ describe('signing in in Chromium at 1280×800', () => {
   }
 
   it('sends a signed-out visitor of a protected page to sign in, then back to that page', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const context = await env.browser.newContext({ viewport: { width: 1280, height: 800 } });
     const page = await context.newPage();
-    await page.goto(`${server.baseUrl}/staff`);
+    await page.goto(`${env.server.baseUrl}/staff`);
     await page.waitForURL('**/sign-in?next=%2Fstaff');
     await page.getByLabel('E-mail').fill('admin@mendstep.test');
     await page.getByLabel('Password').fill('demo-table-2026');
@@ -59,22 +47,22 @@ describe('signing in in Chromium at 1280×800', () => {
   });
 
   it('shows the generic error for a wrong password and stays on the sign-in page', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const context = await env.browser.newContext({ viewport: { width: 1280, height: 800 } });
     const page = await context.newPage();
-    await signIn(page, server.baseUrl, 'therapist@mendstep.test', 'not-the-right-one');
+    await signIn(page, env.server.baseUrl, 'therapist@mendstep.test', 'not-the-right-one');
     await page.getByText('That e-mail and password do not match an active account.').waitFor();
     expect(new URL(page.url()).pathname).toBe('/sign-in');
     await context.close();
   });
 
   it('signs out and a protected page asks for sign-in again', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const context = await env.browser.newContext({ viewport: { width: 1280, height: 800 } });
     const page = await context.newPage();
-    await signIn(page, server.baseUrl, 'therapist@mendstep.test');
+    await signIn(page, env.server.baseUrl, 'therapist@mendstep.test');
     await page.waitForURL('**/today');
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL('**/sign-in');
-    await page.goto(`${server.baseUrl}/today`);
+    await page.goto(`${env.server.baseUrl}/today`);
     await page.waitForURL('**/sign-in?next=%2Ftoday');
     await context.close();
   });

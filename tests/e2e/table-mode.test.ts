@@ -1,19 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, screenshot, signIn, startServer } from '../support/e2e';
+import { describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { screenshot, signIn, useServerAndBrowser } from '../support/e2e';
 
-let server: Awaited<ReturnType<typeof startServer>>;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const env = useServerAndBrowser();
 
 /** Calls the API from inside the signed-in page, with the CSRF token, as the app itself does. */
 async function api<T>(page: Page, method: string, path: string, body?: unknown): Promise<T> {
@@ -38,10 +27,10 @@ async function newInjury(page: Page, name: string, days: number) {
 async function openTableMode(page: Page, injuryId: string, fromToday?: string) {
   if (fromToday) {
     // As a therapist would: from the injury's card on Today.
-    await page.goto(`${server.baseUrl}/today`);
+    await page.goto(`${env.server.baseUrl}/today`);
     await page.getByRole('link', { name: new RegExp(`^Start a run for ${fromToday}`) }).click();
   } else {
-    await page.goto(`${server.baseUrl}/runs/new?injuryId=${injuryId}`);
+    await page.goto(`${env.server.baseUrl}/runs/new?injuryId=${injuryId}`);
   }
   await page.waitForURL(/\/runs\/[0-9a-f-]+\/screening$/);
   await page.getByRole('button', { name: 'Save screening and review the plan' }).click();
@@ -52,11 +41,11 @@ async function openTableMode(page: Page, injuryId: string, fromToday?: string) {
 }
 
 async function therapistPage(): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+  const context = await env.browser.newContext({ viewport: { width: 1280, height: 800 } });
   const page = await context.newPage();
   // The page's clock is Playwright's, so minutes of treatment pass in moments without a time scale in the product.
   await page.clock.install();
-  await signIn(page, server.baseUrl, 'therapist@mendstep.test');
+  await signIn(page, env.server.baseUrl, 'therapist@mendstep.test');
   await page.waitForURL('**/today');
   return { context, page };
 }
@@ -139,7 +128,7 @@ describe('table mode in Chromium at 1280×800', () => {
 
     // Leave table mode so nothing holds the database open, then wipe the tablet's storage.
     const tableUrl = page.url();
-    await page.goto(`${server.baseUrl}/today`);
+    await page.goto(`${env.server.baseUrl}/today`);
     const wiped = await page.evaluate(
       () =>
         new Promise<string>((resolve) => {

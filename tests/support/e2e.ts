@@ -2,6 +2,7 @@ import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import fs from 'node:fs';
 import path from 'node:path';
+import { afterAll, beforeAll } from 'vitest';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
@@ -67,4 +68,21 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
 export async function screenshot(page: Page, name: string) {
   fs.mkdirSync(SCREENSHOTS, { recursive: true });
   await page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
+}
+
+/**
+ * One server and one browser for a test file, started before its tests and closed after them. Read
+ * `env.server` and `env.browser` inside tests (they are set once the file's tests begin).
+ */
+export function useServerAndBrowser() {
+  const env = {} as { server: Awaited<ReturnType<typeof startServer>>; browser: Browser };
+  beforeAll(async () => {
+    env.server = await startServer();
+    env.browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await env.browser?.close();
+    await env.server?.stop();
+  });
+  return env;
 }

@@ -4,7 +4,7 @@ import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type So
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
 import { athleteSortFields, type AthleteListQuery } from '../../../../shared/records/athlete';
 import type { AthleteView } from '../../../../shared/records/responses';
-import { Button } from '../../../components/ui/button';
+import { Pager } from '../../../components/ui/pager';
 import { TextField } from '../../../components/ui/text-field';
 import { useAthletes } from '../api/get-athletes';
 
@@ -172,17 +172,7 @@ export function AthletesTable() {
         </table>
       </div>
 
-      <nav aria-label="Pages" className="flex items-center justify-end gap-3">
-        <Button variant="secondary" disabled={query.page <= 1} onClick={() => setQuery({ page: query.page - 1 })}>
-          Previous
-        </Button>
-        <span className="text-sm">
-          Page {Math.min(query.page, pages)} of {pages}
-        </span>
-        <Button variant="secondary" disabled={query.page >= pages} onClick={() => setQuery({ page: query.page + 1 })}>
-          Next
-        </Button>
-      </nav>
+      <Pager page={query.page} pageCount={pages} onPage={(page) => setQuery({ page })} />
     </div>
   );
 }

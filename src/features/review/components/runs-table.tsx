@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown, Download } from 'lucide-react';
-import { Button } from '../../../components/ui/button';
+import { Pager } from '../../../components/ui/pager';
 import { useReviewRuns } from '../api/get-review-runs';
 import { reviewSortFields, type ReviewSortField } from '../../../../shared/review/query';
 import type { ReviewRunRow } from '../../../../shared/review/responses';
@@ -178,17 +178,7 @@ export function RunsTable({ query, onChange }: { query: ReviewRunsQuery; onChang
         </table>
       </div>
 
-      <nav aria-label="Pages" className="flex items-center justify-end gap-3">
-        <Button variant="secondary" disabled={!table.getCanPreviousPage()} onClick={() => table.previousPage()}>
-          Previous
-        </Button>
-        <span className="text-sm">
-          Page {query.page} of {Math.max(1, table.getPageCount())}
-        </span>
-        <Button variant="secondary" disabled={!table.getCanNextPage()} onClick={() => table.nextPage()}>
-          Next
-        </Button>
-      </nav>
+      <Pager page={query.page} pageCount={table.getPageCount()} onPage={(page) => table.setPageIndex(page - 1)} />
     </section>
   );
 }
