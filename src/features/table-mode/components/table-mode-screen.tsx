@@ -96,7 +96,6 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
   const extendRefused = useSelector(actor, (s) => s.context.extendRefused);
   const outcome = useSelector(actor, (s) => s.context.outcome);
   const plan = detail.run.plan;
-  const saved = useOutboxStatus(sender);
   const [sheet, setSheet] = useState<null | 'skip' | 'red-flag' | 'finish'>(null);
   const [muted, setMuted] = useState(false);
   const [volume, setVolume] = useState(90);
@@ -183,9 +182,6 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
         {outcome === 'stopped-referred' || outcome === 'stop-elevate-refer' ? (
           <p className="max-w-2xl text-2xl text-slate-200">Do not continue treatment. Elevate the limb and refer the athlete to a physician now.</p>
         ) : null}
-        <p className="text-xl text-slate-300" data-testid="saved-status">
-          {saved.text}
-        </p>
         <Link to={`/runs/${detail.run.id}/summary`} className="flex min-h-table-target items-center rounded-2xl bg-paper px-8 text-2xl font-semibold text-slate-950">
           See the summary
         </Link>
@@ -292,10 +288,7 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
             Finish early
           </button>
         </div>
-        <p className="flex items-center gap-2" data-testid="saved-status" aria-live="polite">
-          {saved.waiting > 0 || saved.needsAttention > 0 ? <CloudOff aria-hidden className="h-5 w-5" /> : <CheckCircle2 aria-hidden className="h-5 w-5" />}
-          {saved.text}
-        </p>
+
       </div>
 
       {sheet === 'skip' ? (
@@ -308,6 +301,17 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
         <ReasonSheet title="Stop and refer: which red flag?" choices={redFlags.map((f) => ({ value: f.id, label: f.label }))} allowOther={false} danger confirmLabel="Stop the run" onCancel={() => setSheet(null)} onChoose={(flag) => { setSheet(null); send({ type: 'RED_FLAG', at: at(), flag }); }} />
       ) : null}
     </>
+  );
+}
+
+/** "All saved" or "N waiting to save", always in sight at the top of table mode. */
+function SavedStatus({ sender }: { sender: OutboxSender }) {
+  const saved = useOutboxStatus(sender);
+  return (
+    <p className="flex items-center gap-2 text-lg text-slate-300" data-testid="saved-status" aria-live="polite">
+      {saved.waiting > 0 || saved.needsAttention > 0 ? <CloudOff aria-hidden className="h-5 w-5" /> : <CheckCircle2 aria-hidden className="h-5 w-5" />}
+      {saved.text}
+    </p>
   );
 }
 
@@ -326,9 +330,12 @@ export function TableModeScreen({ detail, onSessionExpired }: { detail: RunDetai
           <span className="text-lg capitalize text-slate-300">{run.injuryLabel}</span>
           <span className="rounded-full border-2 border-slate-500 px-3 py-0.5 text-lg font-semibold">{phaseWord[run.phase]}</span>
         </div>
-        <Link to={`/injuries/${run.injuryId}`} className="flex min-h-table-target items-center rounded-xl px-4 text-lg ring-1 ring-slate-700">
-          Leave table mode
-        </Link>
+        <div className="flex items-center gap-4">
+          <SavedStatus sender={sender} />
+          <Link to={`/injuries/${run.injuryId}`} className="flex min-h-table-target items-center rounded-xl px-4 text-lg ring-1 ring-slate-700">
+            Leave table mode
+          </Link>
+        </div>
       </header>
       {run.plan.cautions.length ? (
         <ul className="mt-3 space-y-1">
