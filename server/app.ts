@@ -32,6 +32,8 @@ import { uploadRoutes } from './routes/uploads';
 import { healthRoutes } from './routes/health';
 import { settingsRoutes } from './routes/settings';
 import { auditRoutes } from './routes/audit';
+import { dataRightsRoutes } from './routes/data-rights';
+import { optOutRoutes } from './routes/opt-out';
 import type { SessionUser } from '../shared/auth/schemas';
 
 export type AppHandle = { app: Express; pool: pg.Pool; mail: MailRuntime };
@@ -139,8 +141,10 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
   api.use('/auth', authRoutes(config, generateCsrfToken));
   api.use('/auth', passwordRoutes(config));
   api.use('/mailbox', mailboxRoutes(config));
+  api.use('/opt-out', optOutRoutes(config));
   api.use(requireSignIn);
   api.use(uploadRoutes(storage));
+  api.use(dataRightsRoutes(storage));
   api.use('/staff', staffRoutes());
   api.use('/athletes', athleteRoutes());
   api.use('/injuries', injuryRoutes());

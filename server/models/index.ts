@@ -33,4 +33,11 @@ export function initModels(sequelize: Sequelize) {
   AuthToken.initModel(sequelize);
   Upload.initModel(sequelize);
   SessionNote.initModel(sequelize);
+
+  // Erased athletes get no new clinical records, whichever service adds them (docs/decisions/0090).
+  Injury.addHook('beforeCreate', 'refuseErasedAthlete', (row: Injury, options) => Athlete.refuseIfErased({ athleteId: row.athleteId }, options.transaction));
+  Run.addHook('beforeCreate', 'refuseErasedAthlete', (row: Run, options) => Athlete.refuseIfErased({ athleteId: row.athleteId }, options.transaction));
+  Upload.addHook('beforeCreate', 'refuseErasedAthlete', (row: Upload, options) => Athlete.refuseIfErased({ athleteId: row.athleteId }, options.transaction));
+  Measurement.addHook('beforeCreate', 'refuseErasedAthlete', (row: Measurement, options) => Athlete.refuseIfErased({ injuryId: row.injuryId }, options.transaction));
+  SessionNote.addHook('beforeCreate', 'refuseErasedAthlete', (row: SessionNote, options) => Athlete.refuseIfErased({ runId: row.runId }, options.transaction));
 }

@@ -7,6 +7,7 @@ import { getStaffMember, listStaff } from '../services/staff-service';
 import { updateStaffMember } from '../services/staff-admin-service';
 import { staffUpdateSchema } from '../../shared/staff/schemas';
 import { invitationRoutes } from './invitations';
+import { resendInvitation } from '../services/invitation-service';
 
 export function staffRoutes(): Router {
   const router = Router();
@@ -27,6 +28,12 @@ export function staffRoutes(): Router {
   router.patch('/:id', async (req, res) => {
     const { id } = parseInput(idParamsSchema, req.params);
     res.json({ member: await updateStaffMember(currentUser(req), id, parseInput(staffUpdateSchema, req.body)) });
+  });
+
+  // A new link for someone invited who has not yet set a password; the earlier links stop working.
+  router.post('/:id/invitation', async (req, res) => {
+    const { id } = parseInput(idParamsSchema, req.params);
+    res.status(201).json(await resendInvitation(currentUser(req), id));
   });
 
   return router;

@@ -4,6 +4,7 @@ import type { AthleteCreate, AthleteListQuery, AthleteUpdate } from '../../share
 import type { AthleteView, Paged } from '../../shared/records/responses';
 import { AppError } from '../errors';
 import { Athlete, User } from '../models';
+import { athleteErasedMessage } from '../models/athlete';
 import { recordAudit } from './audit-service';
 import { guardianConsentFields, guardianConsentView } from './guardian-consent-service';
 
@@ -23,6 +24,8 @@ export async function toAthleteView(athlete: Athlete): Promise<AthleteView> {
     ...guardian,
     notes: athlete.notes,
     createdAt: athlete.createdAt.toISOString(),
+    emailOptedOutAt: athlete.emailOptedOutAt?.toISOString() ?? null,
+    erasedAt: athlete.erasedAt?.toISOString() ?? null,
   };
 }
 
@@ -36,7 +39,8 @@ export async function findAthlete(actor: SessionUser, id: string): Promise<Athle
 const sortColumns = { name: 'name', yearOfBirth: 'yearOfBirth', createdAt: 'createdAt' } as const;
 
 export async function listAthletes(actor: SessionUser, query: AthleteListQuery): Promise<Paged<AthleteView>> {
-  const where: WhereOptions<Athlete> = { clinicId: actor.clinicId };
+  // Erased athletes are no longer the clinic's to treat: they leave the register (their records stay reachable by id).
+  const where: WhereOptions<Athlete> = { clinicId: actor.clinicId, erasedAt: null };
   if (query.q) {
     const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
     Object.assign(where, {
@@ -97,6 +101,7 @@ export async function createAthlete(actor: SessionUser, input: AthleteCreate): P
 
 export async function updateAthlete(actor: SessionUser, id: string, input: AthleteUpdate): Promise<AthleteView> {
   const athlete = await findAthlete(actor, id);
+  if (athlete.erasedAt) throw AppError.conflict(athleteErasedMessage, 'athlete_erased');
   const { consentToTreatment, guardianConsent, ...rest } = input;
   await Athlete.sequelize!.transaction(async (transaction) => {
     await athlete.update({ ...rest, ...consentFields(actor, consentToTreatment, athlete), ...guardianConsentFields(actor, guardianConsent, athlete) }, { transaction });

@@ -14,6 +14,7 @@ import { queueRunAlerts } from './alert-service';
 import { recordAudit } from './audit-service';
 import { getClinicSettings } from './clinic-settings-service';
 import { enqueueMail, runInBackground } from './mail-outbox-service';
+import { issueOptOutLink } from './opt-out-service';
 
 /** What the messages about one finished run need, loaded once. */
 export interface RunMailContext {
@@ -49,6 +50,11 @@ export async function queueHomeCare(context: RunMailContext, transaction: Transa
   const { run, athlete, injury, settings } = context;
   const outcome = run.outcome ? homeCareOutcomes[run.outcome] : undefined;
   if (!outcome || (run.status !== 'completed' && run.status !== 'fell-back')) return 'not a completed run';
+  // Read again under a share lock: an opt-out or erasure that committed since the context was loaded is seen here,
+  // and one under way waits until this message is queued, then cancels it.
+  const latest = await Athlete.findByPk(athlete.id, { attributes: ['id', 'erasedAt', 'emailOptedOutAt'], transaction, lock: transaction.LOCK.SHARE });
+  if (!latest || latest.erasedAt) return 'athlete data erased';
+  if (latest.emailOptedOutAt) return 'athlete opted out of e-mails';
   if (!athlete.email) return 'no e-mail address';
   if (!athlete.consentToTreatment) return 'no consent recorded';
 
@@ -90,6 +96,8 @@ export async function queueHomeCare(context: RunMailContext, transaction: Transa
     recheckWithinHours: remeasureAfterHours[run.phase],
     // The injury's next re-check, set when the run finished; without one the message says the clinic will get in touch.
     nextRecheckAt: injury.nextRecheckAt && injury.nextRecheckAt > endedAt ? injury.nextRecheckAt : null,
+    // A fresh single-use link per message, written in this transaction with the message itself.
+    optOutLink: await issueOptOutLink(athlete, transaction),
   });
   const attachments = message.reminders.length
     ? [

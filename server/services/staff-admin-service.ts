@@ -33,6 +33,12 @@ export async function updateStaffMember(actor: SessionUser, id: string, input: S
       throw AppError.conflict(lastAdminMessage, 'last_admin');
     }
 
+    // Someone invited becomes active by setting a password from their link; switching them on here would make an
+    // account nobody can sign in to.
+    if (!member.active && nextActive && member.passwordHash === null) {
+      throw AppError.conflict(`${member.name} has not accepted the invitation yet: resend it instead.`, 'invitation_pending');
+    }
+
     const previous = { role: member.role, active: member.active };
     await member.update({ role: nextRole, active: nextActive }, { transaction });
     const record = { type: 'user', id: member.id };

@@ -10,6 +10,7 @@ export async function listStaff(actor: SessionUser): Promise<StaffMember[]> {
     role: u.role,
     clinicId: u.clinicId,
     active: u.active,
+    invited: u.passwordHash === null,
     createdAt: u.createdAt.toISOString(),
   }));
 }
@@ -18,5 +19,5 @@ export async function listStaff(actor: SessionUser): Promise<StaffMember[]> {
 export async function getStaffMember(actor: SessionUser, id: string): Promise<StaffMember | null> {
   const u = await User.findOne({ where: { id, clinicId: actor.clinicId } });
   if (!u) return null;
-  return { id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId, active: u.active, createdAt: u.createdAt.toISOString() };
+  return { id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId, active: u.active, invited: u.passwordHash === null, createdAt: u.createdAt.toISOString() };
 }

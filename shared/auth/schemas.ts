@@ -28,5 +28,6 @@ export const sessionUserSchema = z.object({
 });
 export type SessionUser = z.infer<typeof sessionUserSchema>;
 
-export const staffMemberSchema = sessionUserSchema.extend({ active: z.boolean(), createdAt: z.string() });
+/** `invited`: invited by e-mail and no password set yet (shown as "Invited", not "Deactivated"). */
+export const staffMemberSchema = sessionUserSchema.extend({ active: z.boolean(), invited: z.boolean(), createdAt: z.string() });
 export type StaffMember = z.infer<typeof staffMemberSchema>;

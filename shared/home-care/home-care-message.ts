@@ -32,6 +32,11 @@ export interface HomeCareInput {
   recheckWithinHours: number | null;
   /** The injury's booked re-check, when there is one after this run. */
   nextRecheckAt: Instant | null;
+  /**
+   * The athlete's single-use link to stop e-mails from the clinic (APP_URL/opt-out?token=…). Every message the
+   * server sends carries one; it is the message's only link, and it opens a page of ours that tracks nothing.
+   */
+  optOutLink?: string | null;
 }
 
 /** One cold session as a calendar event. */
@@ -218,6 +223,7 @@ export function buildHomeCareMessage(input: HomeCareInput): HomeCareMessage {
 
   const greeting = `Hello ${firstName(input.athleteName)},`;
   const signOff = input.clinicName;
+  const optOutLead = `You receive this e-mail because you were treated at ${input.clinicName}. To stop e-mails from ${input.clinicName}, open this link (no sign-in needed):`;
 
   const text = [
     greeting,
@@ -237,6 +243,7 @@ export function buildHomeCareMessage(input: HomeCareInput): HomeCareMessage {
     '',
     signOff,
     '',
+    ...(input.optOutLink ? [optOutLead, input.optOutLink, ''] : []),
   ].join('\n');
 
   const html = mailDocument(
@@ -251,7 +258,10 @@ export function buildHomeCareMessage(input: HomeCareInput): HomeCareMessage {
       heading('Next appointment') +
       paragraph(next) +
       `<div style="${mailStyles.note}"><strong>Please note.</strong> ${escapeHtml(adviceCaution)}</div>` +
-      paragraph(signOff),
+      paragraph(signOff) +
+      (input.optOutLink
+        ? `<p style="${mailStyles.small}">${escapeHtml(optOutLead)} <a href="${escapeHtml(input.optOutLink)}">Stop e-mails</a> (${escapeHtml(input.optOutLink)})</p>`
+        : ''),
   );
 
   return { subject, text, html, reminders };

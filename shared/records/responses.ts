@@ -22,6 +22,10 @@ export interface AthleteView {
   notes: string | null;
   createdAt: string;
   openInjuries?: number;
+  /** When the athlete used an e-mail's opt-out link: no further e-mails go to them. Always sent by the API. */
+  emailOptedOutAt?: string | null;
+  /** When an admin erased the athlete's personal data (the record stays, anonymised). Always sent by the API. */
+  erasedAt?: string | null;
 }
 
 export interface MeasurementView {

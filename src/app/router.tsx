@@ -19,6 +19,8 @@ import { SetPasswordRoute } from './routes/set-password-route';
 import { SettingsRoute } from './routes/settings-route';
 import { AuditRoute } from './routes/audit-route';
 import { ReferralRoute } from './routes/referral-route';
+import { DataRightsRoute } from './routes/data-rights-route';
+import { OptOutRoute } from './routes/opt-out-route';
 
 function NotFound() {
   return (
@@ -48,6 +50,8 @@ export const routes = [
   { path: '/staff', element: <StaffRoute /> },
   { path: '/settings', element: <SettingsRoute /> },
   { path: '/audit', element: <AuditRoute /> },
+  { path: '/data-rights', element: <DataRightsRoute /> },
+  { path: '/opt-out', element: <OptOutRoute /> },
   { path: '/runs/new', element: <StartRunRoute /> },
   { path: '/runs/:id/screening', element: <ScreeningRoute /> },
   { path: '/runs/:id/summary', element: <RunSummaryRoute /> },

@@ -90,7 +90,12 @@ describe('home-care plan after a run', () => {
     expect(message.text).toContain(`Your next re-check: ${recheckLocal.toFormat('cccc d LLLL')} at ${recheckLocal.toFormat('HH:mm')}.`);
     expect(message.text).toContain('does not replace');
     expect(message.html).toBeTruthy();
-    expect(message.html as string).not.toMatch(/<img|https?:\/\//i);
+    const html = message.html as string;
+    expect(html).not.toMatch(/<img/i);
+    // No tracking: the one link is the athlete's opt-out page.
+    const links = [...html.matchAll(/https?:\/\/[^"\s)<]+/gi)].map((m) => m[0]);
+    expect(links.length).toBeGreaterThan(0);
+    expect(links.every((link) => link.startsWith(`${APP_URL}/opt-out?token=`))).toBe(true);
 
     const calendar = message.attachments.find((a) => a.filename === 'cold-reminders.ics');
     expect(calendar?.contentType).toBe('text/calendar');

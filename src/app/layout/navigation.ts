@@ -11,6 +11,7 @@ export const navItems: NavItem[] = [
   { to: '/staff', label: 'Staff', roles: ['admin'] },
   { to: '/settings', label: 'Settings', roles: ['admin'] },
   { to: '/audit', label: 'Audit', roles: ['admin', 'supervisor'] },
+  { to: '/data-rights', label: 'Data rights', roles: ['admin'] },
   // The local mailbox: outside production only (in production /api/mailbox answers 404 and the page says so).
   { to: '/mailbox', label: 'Mailbox', roles: ['admin'] },
 ];

@@ -9,6 +9,7 @@ import { athleteKeys } from '../../features/athletes/api/keys';
 import { AthleteProfile } from '../../features/athletes/components/athlete-profile';
 import { RequireAuth } from '../../features/auth/components/require-auth';
 import { InjuryList } from '../../features/injuries/components/injury-list';
+import { ConsentForms } from '../../features/uploads/components/consent-forms';
 import { RecordInjuryForm } from '../../features/injuries/components/record-injury-form';
 import { AppShell } from '../layout/app-shell';
 
@@ -49,13 +50,16 @@ function AthletePage({ athleteId }: { athleteId: string }) {
         </p>
       </header>
       <div className="grid items-start gap-4 lg:grid-cols-2">
-        <AthleteProfile athlete={athlete} />
+        <div className="flex flex-col gap-4">
+          <AthleteProfile athlete={athlete} />
+          <ConsentForms athleteId={athlete.id} readOnly={Boolean(athlete.erasedAt)} />
+        </div>
         <section aria-labelledby="injuries-heading" className="flex flex-col gap-3 rounded-xl bg-paper-raised p-4 ring-1 ring-ink/10">
           <div className="flex flex-wrap items-center justify-between gap-2">
             <h2 id="injuries-heading" className="text-lg font-semibold">
               Injuries
             </h2>
-            {recording ? null : (
+            {recording || athlete.erasedAt ? null : (
               <Button onClick={() => setRecording(true)}>
                 <Plus aria-hidden className="h-4 w-4" /> Record an injury
               </Button>

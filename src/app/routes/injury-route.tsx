@@ -5,6 +5,7 @@ import { useInjury } from '../../features/injuries/api/get-injury';
 import { InjuryPhotos } from '../../features/uploads/components/injury-photos';
 import { ClosurePanel } from '../../features/closure/components/closure-panel';
 import { RecheckEditor } from '../../features/closure/components/recheck-editor';
+import { EmailOptOutNote } from '../../features/athletes/components/email-status';
 import { AppShell } from '../layout/app-shell';
 
 export function InjuryRoute() {
@@ -36,9 +37,15 @@ function InjuryPhotosPanel({ injuryId }: { injuryId: string }) {
 function InjuryOperations({ injuryId }: { injuryId: string }) {
   const detail = useInjury(injuryId);
   if (!detail.data) return null;
-  const { injury } = detail.data;
+  const { injury, athlete } = detail.data;
   return (
     <div className="grid items-start gap-4 lg:grid-cols-[1fr_2fr]">
+      {athlete.emailOptedOutAt ? (
+        // The home-care plan cannot go by e-mail: the therapist must hand it over in person.
+        <p className="rounded-lg bg-ember-50 px-3 py-2 text-sm lg:col-span-2">
+          <EmailOptOutNote athlete={athlete} />
+        </p>
+      ) : null}
       {injury.status === 'open' ? <RecheckEditor key={injury.nextRecheckAt ?? 'none'} injury={injury} /> : null}
       <div className={injury.status === 'open' ? '' : 'lg:col-span-2'}>
         <ClosurePanel injuryId={injuryId} />

@@ -1,6 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { Ban, CheckCircle2, ShieldAlert, UserCheck, UserX } from 'lucide-react';
+import { Ban, CheckCircle2, Mail, MailCheck, RefreshCw, ShieldAlert, UserCheck, UserX } from 'lucide-react';
 import { roles, type Role } from '../../../../shared/auth/roles';
 import type { StaffMember } from '../../../../shared/auth/schemas';
 import { roleWords, type StaffUpdate } from '../../../../shared/staff/schemas';
@@ -8,6 +8,8 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useStaff } from '../api/get-staff';
 import { useUpdateStaffMember } from '../api/update-staff-member';
+import { useResendInvitation } from '../api/resend-invitation';
+import { InviteForm } from './invite-form';
 
 type Pending = { member: StaffMember; change: StaffUpdate; question: string; consequence: string; danger: boolean };
 
@@ -33,6 +35,7 @@ const column = createColumnHelper<StaffMember>();
 export function StaffTable() {
   const staff = useStaff();
   const update = useUpdateStaffMember();
+  const resend = useResendInvitation();
   const [pending, setPending] = useState<Pending | null>(null);
   const confirmRef = useRef<HTMLDivElement>(null);
   // The question sits above the table: bring it into view when asked from a row further down.
@@ -69,7 +72,11 @@ export function StaffTable() {
     column.accessor('active', {
       header: 'Status',
       cell: (c) =>
-        c.getValue() ? (
+        c.row.original.invited ? (
+          <span className="inline-flex items-center gap-1.5">
+            <Mail aria-hidden className="h-4 w-4 text-tide-700" /> Invited
+          </span>
+        ) : c.getValue() ? (
           <span className="inline-flex items-center gap-1.5">
             <CheckCircle2 aria-hidden className="h-4 w-4 text-moss-600" /> Active
           </span>
@@ -83,7 +90,16 @@ export function StaffTable() {
       id: 'actions',
       header: () => <span className="sr-only">Actions</span>,
       cell: (c) =>
-        c.row.original.active ? (
+        c.row.original.invited ? (
+          <Button
+            variant="secondary"
+            disabled={resend.isPending}
+            onClick={() => resend.mutate(c.row.original.id)}
+            aria-label={`Resend the invitation to ${c.row.original.name}`}
+          >
+            <RefreshCw aria-hidden className="h-4 w-4" /> Resend invitation
+          </Button>
+        ) : c.row.original.active ? (
           <Button variant="secondary" disabled={update.isPending} onClick={() => ask(c.row.original, { active: false })} aria-label={`Deactivate ${c.row.original.name}`}>
             <UserX aria-hidden className="h-4 w-4" /> Deactivate
           </Button>
@@ -102,6 +118,20 @@ export function StaffTable() {
 
   return (
     <div className="flex flex-col gap-4">
+      <InviteForm />
+      {resend.isError ? (
+        <Notice kind="error" title="Invitation not sent">
+          {resend.error.message}
+        </Notice>
+      ) : null}
+      {resend.isSuccess ? (
+        <p role="status" className="flex items-start gap-2 rounded-lg border-l-4 border-moss-500 bg-moss-50 p-3 text-sm">
+          <MailCheck aria-hidden className="mt-0.5 h-4 w-4 shrink-0" />
+          <span>
+            <strong>New invitation sent</strong> to {resend.data.member.name} ({resend.data.member.email}). Earlier links no longer work.
+          </span>
+        </p>
+      ) : null}
       {update.isError ? (
         <Notice kind="error" title="Not changed">
           {update.error.message}

@@ -1,10 +1,10 @@
-import { useId, useRef, useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent } from 'react';
 import { CheckCircle2, ImagePlus } from 'lucide-react';
 import { uploadRules } from '../../../../shared/uploads/uploads';
-import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useUploadMeasurementPhoto } from '../api/upload-measurement-photo';
+import { FileField, useChosenFile } from './file-field';
 import { takenWhen } from './format';
 
 const rule = uploadRules['measurement-photo'];
@@ -13,31 +13,19 @@ const rule = uploadRules['measurement-photo'];
 export function MeasurementPhotoForm({ injuryId, measurements }: { injuryId: string; measurements: { id: string; takenAt: string }[] }) {
   const newestFirst = [...measurements].sort((a, b) => Date.parse(b.takenAt) - Date.parse(a.takenAt));
   const [measurementId, setMeasurementId] = useState('');
-  const [file, setFile] = useState<File | null>(null);
-  const [tooBig, setTooBig] = useState(false);
-  const input = useRef<HTMLInputElement>(null);
   const upload = useUploadMeasurementPhoto(injuryId);
-  const ids = { measurement: useId(), file: useId() };
+  const chosenFile = useChosenFile('measurement-photo', upload);
+  const ids = { measurement: useId() };
   const chosen = measurementId || newestFirst[0]?.id || '';
 
   if (!newestFirst.length) return <p className="text-ink-muted">Record a measurement first; photos are kept with a measurement.</p>;
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
-    if (!file || tooBig || !chosen) return;
-    upload.mutate(
-      { measurementId: chosen, file },
-      {
-        onSuccess: () => {
-          setFile(null);
-          if (input.current) input.current.value = '';
-        },
-      },
-    );
+    if (!chosenFile.ready || !chosen) return;
+    upload.mutate({ measurementId: chosen, file: chosenFile.ready }, { onSuccess: chosenFile.clear });
   };
 
-  const serverError = upload.error instanceof ApiError ? (upload.error.fields?.file ?? upload.error.message) : upload.error ? 'Could not reach Mendstep. Try again.' : null;
-  const sizeError = tooBig ? `The photo is larger than ${rule.maxBytes / 1024 / 1024} MB. Choose a smaller one.` : null;
 
   return (
     <form onSubmit={submit} className="flex flex-col gap-3" aria-label="Add a bruise photo">
@@ -59,33 +47,25 @@ export function MeasurementPhotoForm({ injuryId, measurements }: { injuryId: str
             ))}
           </select>
         </div>
-        <div className="flex flex-col gap-1">
-          <label htmlFor={ids.file} className="text-sm font-medium">
-            Photo <span className="font-normal text-ink-muted">(JPEG, PNG or WebP, up to {rule.maxBytes / 1024 / 1024} MB)</span>
-          </label>
-          <input
-            ref={input}
-            id={ids.file}
-            type="file"
-            accept={rule.accepted.join(',')}
-            aria-invalid={sizeError || serverError ? true : undefined}
-            onChange={(e) => {
-              const next = e.target.files?.[0] ?? null;
-              upload.reset();
-              setFile(next);
-              setTooBig(Boolean(next && next.size > rule.maxBytes));
-            }}
-            className="min-h-target rounded-lg border border-ink/30 bg-paper-raised px-3 py-2 file:mr-3 file:min-h-[36px] file:rounded-md file:border-0 file:bg-paper-sunk file:px-3 file:font-medium"
-          />
-        </div>
-        <Button type="submit" disabled={!file || tooBig || upload.isPending}>
+        <FileField
+          ref={chosenFile.input}
+          label={
+            <>
+              Photo <span className="font-normal text-ink-muted">(JPEG, PNG or WebP, up to {rule.maxBytes / 1024 / 1024} MB)</span>
+            </>
+          }
+          accept={rule.accepted}
+          invalid={Boolean(chosenFile.error)}
+          onPick={chosenFile.pick}
+        />
+        <Button type="submit" disabled={!chosenFile.ready || upload.isPending}>
           <ImagePlus aria-hidden className="h-4 w-4" />
           {upload.isPending ? 'Uploading…' : 'Add photo'}
         </Button>
       </div>
-      {sizeError || serverError ? (
+      {chosenFile.error ? (
         <Notice kind="error" title="Photo not added">
-          {sizeError ?? serverError}
+          {chosenFile.error}
         </Notice>
       ) : null}
       {upload.isSuccess ? (
