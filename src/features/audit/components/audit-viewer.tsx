@@ -1,4 +1,3 @@
-import { useId, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ChevronLeft, ChevronRight, Download, X } from 'lucide-react';
 import { auditQuerySchema, type AuditQuery } from '../../../../shared/audit/query';
@@ -7,6 +6,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { auditCsvHref, useAuditEvents } from '../api/get-audit-events';
 import { useAuditFilters } from '../api/get-audit-filters';
+import { FilterSelect } from '../../../components/ui/filter-select';
 
 const filterKeys = ['userId', 'recordType', 'from', 'to'] as const;
 
@@ -43,20 +43,6 @@ function detailText(detail: Record<string, unknown>): string {
     .join('; ');
 }
 
-function Choice({ label, value, onChange, children }: { label: string; value: string | undefined; onChange: (value: string | undefined) => void; children: ReactNode }) {
-  const id = useId();
-  return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium">
-        {label}
-      </label>
-      <select id={id} value={value ?? ''} onChange={(e) => onChange(e.target.value || undefined)} className="min-h-target rounded-lg border border-ink/30 bg-paper-raised px-3 py-2">
-        {children}
-      </select>
-    </div>
-  );
-}
-
 export function AuditViewer() {
   const [params, setParams] = useSearchParams();
   const query = parseQuery(params);
@@ -71,7 +57,7 @@ export function AuditViewer() {
   return (
     <div className="flex flex-col gap-4">
       <form role="search" aria-label="Filter the audit trail" onSubmit={(e) => e.preventDefault()} className="grid gap-3 rounded-xl bg-paper-raised p-4 ring-1 ring-ink/10 sm:grid-cols-2 lg:grid-cols-6">
-        <Choice label="Person" value={query.userId} onChange={(userId) => change({ userId })}>
+        <FilterSelect label="Person" value={query.userId} onChange={(userId) => change({ userId })}>
           <option value="">Everyone</option>
           {filters.data?.people.map((p) => (
             <option key={p.id} value={p.id}>
@@ -79,15 +65,15 @@ export function AuditViewer() {
               {p.active ? '' : ' (deactivated)'}
             </option>
           ))}
-        </Choice>
-        <Choice label="Record type" value={query.recordType} onChange={(recordType) => change({ recordType })}>
+        </FilterSelect>
+        <FilterSelect label="Record type" value={query.recordType} onChange={(recordType) => change({ recordType })}>
           <option value="">All records</option>
           {filters.data?.recordTypes.map((type) => (
             <option key={type} value={type}>
               {recordTypeWords[type] ?? type}
             </option>
           ))}
-        </Choice>
+        </FilterSelect>
         <TextField label="From" type="date" value={query.from ?? ''} max={query.to} onChange={(e) => change({ from: e.target.value || undefined })} />
         <TextField label="To" type="date" value={query.to ?? ''} min={query.from} onChange={(e) => change({ to: e.target.value || undefined })} />
         <div className="flex items-end">

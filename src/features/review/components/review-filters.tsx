@@ -1,4 +1,3 @@
-import { useId, type ReactNode } from 'react';
 import { X } from 'lucide-react';
 import { phases } from '../../../../shared/phase';
 import { Button } from '../../../components/ui/button';
@@ -7,22 +6,9 @@ import { useReviewFilters } from '../api/get-review-filters';
 import { reviewOutcomes } from '../../../../shared/review/query';
 import { filterKeys, type ReviewRunsQuery } from '../lib/review-query';
 import { outcomeWords } from './status-badges';
+import { FilterSelect } from '../../../components/ui/filter-select';
 
 type Change = (next: Partial<ReviewRunsQuery>) => void;
-
-function Choice({ label, value, onChange, children }: { label: string; value: string | undefined; onChange: (value: string | undefined) => void; children: ReactNode }) {
-  const id = useId();
-  return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium">
-        {label}
-      </label>
-      <select id={id} value={value ?? ''} onChange={(e) => onChange(e.target.value || undefined)} className="min-h-target rounded-lg border border-ink/30 bg-paper-raised px-3 py-2">
-        {children}
-      </select>
-    </div>
-  );
-}
 
 /** Every change applies at once and goes back to page 1: the address bar is the single place the filters live. */
 export function ReviewFilters({ query, onChange }: { query: ReviewRunsQuery; onChange: Change }) {
@@ -33,43 +19,43 @@ export function ReviewFilters({ query, onChange }: { query: ReviewRunsQuery; onC
     <form role="search" aria-label="Filter runs" className="grid gap-3 rounded-xl bg-paper-raised p-4 ring-1 ring-ink/10 sm:grid-cols-3 lg:grid-cols-6" onSubmit={(e) => e.preventDefault()}>
       <TextField label="From" type="date" value={query.from ?? ''} max={query.to} onChange={(e) => onChange({ from: e.target.value || undefined })} />
       <TextField label="To" type="date" value={query.to ?? ''} min={query.from} onChange={(e) => onChange({ to: e.target.value || undefined })} />
-      <Choice label="Therapist" value={query.therapistId} onChange={(therapistId) => onChange({ therapistId })}>
+      <FilterSelect label="Therapist" value={query.therapistId} onChange={(therapistId) => onChange({ therapistId })}>
         <option value="">All therapists</option>
         {options.data?.therapists.map((t) => (
           <option key={t.id} value={t.id}>
             {t.name}
           </option>
         ))}
-      </Choice>
-      <Choice label="Athlete" value={query.athleteId} onChange={(athleteId) => onChange({ athleteId })}>
+      </FilterSelect>
+      <FilterSelect label="Athlete" value={query.athleteId} onChange={(athleteId) => onChange({ athleteId })}>
         <option value="">All athletes</option>
         {options.data?.athletes.map((a) => (
           <option key={a.id} value={a.id}>
             {a.name}
           </option>
         ))}
-      </Choice>
-      <Choice label="Phase" value={query.phase} onChange={(phase) => onChange({ phase: phase as ReviewRunsQuery['phase'] })}>
+      </FilterSelect>
+      <FilterSelect label="Phase" value={query.phase} onChange={(phase) => onChange({ phase: phase as ReviewRunsQuery['phase'] })}>
         <option value="">All phases</option>
         {phases.map((p) => (
           <option key={p} value={p} className="capitalize">
             {p.charAt(0).toUpperCase() + p.slice(1)}
           </option>
         ))}
-      </Choice>
-      <Choice label="Outcome" value={query.outcome} onChange={(outcome) => onChange({ outcome: outcome as ReviewRunsQuery['outcome'] })}>
+      </FilterSelect>
+      <FilterSelect label="Outcome" value={query.outcome} onChange={(outcome) => onChange({ outcome: outcome as ReviewRunsQuery['outcome'] })}>
         <option value="">All outcomes</option>
         {reviewOutcomes.map((o) => (
           <option key={o} value={o}>
             {outcomeWords[o]}
           </option>
         ))}
-      </Choice>
-      <Choice label="Session note" value={query.noteSigned} onChange={(noteSigned) => onChange({ noteSigned: noteSigned as ReviewRunsQuery['noteSigned'] })}>
+      </FilterSelect>
+      <FilterSelect label="Session note" value={query.noteSigned} onChange={(noteSigned) => onChange({ noteSigned: noteSigned as ReviewRunsQuery['noteSigned'] })}>
         <option value="">Signed or not</option>
         <option value="true">Signed</option>
         <option value="false">Not signed yet</option>
-      </Choice>
+      </FilterSelect>
       <label className="inline-flex min-h-target cursor-pointer items-center gap-3 self-end rounded-lg px-1 font-medium sm:col-span-2">
         <input type="checkbox" className="h-6 w-6 accent-ink" checked={query.attention === 'true'} onChange={(e) => onChange({ attention: e.target.checked ? 'true' : undefined })} />
         Needs attention only
