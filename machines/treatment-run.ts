@@ -225,6 +225,21 @@ const finished = (outcome: RunOutcome, at: number): Partial<TreatmentRunContext>
   remainingMs: null,
 });
 
+/**
+ * A timed step of back to cold: its timer, or a TICK past its deadline after a restore, moves on to `next`;
+ * an earlier TICK re-arms the timer for the time left; EXTEND adds to it within the kind's bound.
+ */
+function timedBackToColdStep<Self extends string, Next extends string, Start extends string>(self: Self, next: Next, start: Start) {
+  const moveOn = { target: next, actions: ['noteTime', 'recordStepTimedOut', start] as ['noteTime', 'recordStepTimedOut', Start] };
+  return {
+    after: { stepTimer: moveOn },
+    on: {
+      TICK: [{ guard: 'isDeadlinePassed' as const, ...moveOn }, { target: self, reenter: true, actions: 'noteTime' as const }],
+      EXTEND: { target: self, reenter: true, actions: ['noteTime', 'extendStep'] as ['noteTime', 'extendStep'] },
+    },
+  };
+}
+
 export const treatmentRunMachine = setup({
   types: {
     context: {} as TreatmentRunContext,
@@ -555,38 +570,8 @@ export const treatmentRunMachine = setup({
       },
       onDone: { target: 'fellBack', actions: 'recordFellBack' },
       states: {
-        waitBeforeCold: {
-          after: {
-            stepTimer: { target: 'coldPack', actions: ['noteTime', 'recordStepTimedOut', 'startColdPack'] },
-          },
-          on: {
-            TICK: [
-              {
-                guard: 'isDeadlinePassed',
-                target: 'coldPack',
-                actions: ['noteTime', 'recordStepTimedOut', 'startColdPack'],
-              },
-              { target: 'waitBeforeCold', reenter: true, actions: 'noteTime' },
-            ],
-            EXTEND: { target: 'waitBeforeCold', reenter: true, actions: ['noteTime', 'extendStep'] },
-          },
-        },
-        coldPack: {
-          after: {
-            stepTimer: { target: 'compression', actions: ['noteTime', 'recordStepTimedOut', 'startCompression'] },
-          },
-          on: {
-            TICK: [
-              {
-                guard: 'isDeadlinePassed',
-                target: 'compression',
-                actions: ['noteTime', 'recordStepTimedOut', 'startCompression'],
-              },
-              { target: 'coldPack', reenter: true, actions: 'noteTime' },
-            ],
-            EXTEND: { target: 'coldPack', reenter: true, actions: ['noteTime', 'extendStep'] },
-          },
-        },
+        waitBeforeCold: timedBackToColdStep('waitBeforeCold', 'coldPack', 'startColdPack'),
+        coldPack: timedBackToColdStep('coldPack', 'compression', 'startCompression'),
         compression: {
           on: {
             NEXT: { target: 'done', actions: ['noteTime', 'recordStepConfirmed'] },

@@ -10,10 +10,11 @@ import type { InjuryCreate, InjuryUpdate, PhaseOverride } from '../../shared/rec
 import type { MeasurementCreate } from '../../shared/records/measurement';
 import type { InjuryDetailView, InjuryView, MeasurementView } from '../../shared/records/responses';
 import { AppError } from '../errors';
-import { Athlete, Injury, Measurement, User } from '../models';
+import { Athlete, Injury, Measurement } from '../models';
 import { findAthlete, toAthleteView } from './athlete-service';
 import { recordAudit } from './audit-service';
 import { getClinicSettings } from './clinic-settings-service';
+import { staffNames } from './staff-names';
 
 /** An injury of the caller's clinic; any other is "not found". */
 export async function findInjury(actor: SessionUser, id: string): Promise<Injury> {
@@ -22,12 +23,6 @@ export async function findInjury(actor: SessionUser, id: string): Promise<Injury
   return injury;
 }
 
-async function staffNames(ids: (string | null | undefined)[]): Promise<Map<string, string>> {
-  const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
-  if (!wanted.length) return new Map();
-  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] });
-  return new Map(users.map((u) => [u.id, u.name]));
-}
 
 function toMeasurementView(m: Measurement, names: Map<string, string>): MeasurementView {
   return {

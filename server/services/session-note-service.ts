@@ -5,11 +5,12 @@ import type { SessionNoteView } from '../../shared/notes/responses';
 import { noteSections, type SessionNoteUpdate } from '../../shared/notes/schemas';
 import { finishedStatuses } from '../../shared/runs/responses';
 import { AppError } from '../errors';
-import { Injury, Measurement, Run, RunLogEntry, SessionNote, User } from '../models';
+import { Injury, Measurement, Run, RunLogEntry, SessionNote } from '../models';
 import { recordAudit } from './audit-service';
 import { getClinicSettings } from './clinic-settings-service';
 import { getInjuryView } from './injury-service';
 import { findRun } from './run-service';
+import { staffNames } from './staff-names';
 
 /*
  * The life of a session note: drafted by Mendstep the first time anyone opens it → edited → submitted by
@@ -17,12 +18,6 @@ import { findRun } from './run-service';
  * which unlocks it as a draft again. Every step is an audit event naming the note's version.
  */
 
-async function staffNames(ids: (string | null)[]): Promise<Map<string, string>> {
-  const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
-  if (!wanted.length) return new Map();
-  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] });
-  return new Map(users.map((u) => [u.id, u.name]));
-}
 
 export async function toNoteView(note: SessionNote): Promise<SessionNoteView> {
   const names = await staffNames([note.submittedBy, note.signedBy]);

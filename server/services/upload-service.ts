@@ -6,11 +6,12 @@ import { Op } from 'sequelize';
 import type { SessionUser } from '../../shared/auth/schemas';
 import { uploadField, uploadRules, type ConsentFormView, type PhotoView, type UploadKind, type UploadView } from '../../shared/uploads/uploads';
 import { AppError } from '../errors';
-import { Injury, Measurement, Upload, User } from '../models';
+import { Injury, Measurement, Upload } from '../models';
 import { StoredFileMissing, type FileStorage } from '../storage';
 import { findAthlete } from './athlete-service';
 import { recordAudit } from './audit-service';
 import { findInjury } from './injury-service';
+import { staffNames } from './staff-names';
 
 export interface IncomingFile {
   buffer: Buffer;
@@ -56,12 +57,6 @@ function cleanName(name: string): string | null {
   return cleaned || null;
 }
 
-async function staffNames(ids: (string | null)[]): Promise<Map<string, string>> {
-  const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
-  if (!wanted.length) return new Map();
-  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] });
-  return new Map(users.map((u) => [u.id, u.name]));
-}
 
 function toUploadView(upload: Upload, names: Map<string, string>): UploadView {
   return {
