@@ -1,6 +1,7 @@
 import { and, assertEvent, enqueueActions, setup, type SnapshotFrom } from 'xstate';
 import { planSchema, compressionCue, type Plan, type PlanInput, type PlanStep } from '../shared/plan/build-plan';
 import { stepKindInfo, type StepKind } from '../shared/plan/step-kinds';
+import { coldWaitMs, isCold, maxStepSeconds } from '../shared/plan/treatment-rules';
 import { swellingCheckDetails, type LogEntry, type RunOutcome } from '../shared/runs/log-entry';
 import { redFlagLabel, type RedFlagId } from '../shared/runs/screening';
 
@@ -84,6 +85,8 @@ export interface TreatmentRunContext {
   logSeq: number;
   swellingChecks: number;
   lastSwelling: (typeof swellingCheckDetails)[keyof typeof swellingCheckDetails] | null;
+  /** When the last cold step came off (ms since the epoch), for the wait before the next (treatment rule 2). */
+  lastColdEndedAt: number | null;
   /** The step that swelling interrupted, when the run went back to cold. */
   interruptedKind: StepKind | null;
   outcome: RunOutcome | null;
@@ -164,6 +167,8 @@ function stepEntry(
   const entry: LogEntry = { type, kind: step.kind, plannedSeconds: step.seconds, at: iso(at), ...extra };
   if (step.index !== null) entry.stepIndex = step.index;
   if (step.stage === 'back-to-cold' && entry.detail === undefined) entry.detail = 'back to cold';
+  // The plan's own wait before a cold step is no step of the plan: it has no index, and says what it was.
+  if (step.stage === 'plan' && step.index === null && entry.detail === undefined) entry.detail = 'wait before cold';
   return entry;
 }
 
@@ -182,7 +187,7 @@ function planStep(plan: Plan, index: number): RunStep {
   return { ...plan.steps[index], stage: 'plan' };
 }
 
-function fallbackStep(plan: Plan, kind: 'rest-recheck' | 'cold-pack' | 'compression-wrap'): RunStep {
+function fallbackStep(plan: Plan, kind: 'rest-recheck' | 'cold-pack' | 'compression-wrap', waitSeconds = plan.minColdIntervalSeconds): RunStep {
   const base = { index: null, stage: 'back-to-cold' as const, optional: false };
   const fromPlan = plan.steps.find((step) => step.kind === kind);
   if (kind === 'rest-recheck') {
@@ -190,7 +195,7 @@ function fallbackStep(plan: Plan, kind: 'rest-recheck' | 'cold-pack' | 'compress
       ...base,
       kind,
       label: 'Wait before cold',
-      seconds: plan.minColdIntervalSeconds,
+      seconds: waitSeconds,
       cue: 'Ice off — skin rests before a fresh cold pack',
       needsConfirm: false,
       handsOn: false,
@@ -224,6 +229,25 @@ const finished = (outcome: RunOutcome, at: number): Partial<TreatmentRunContext>
   deadline: null,
   remainingMs: null,
 });
+
+/** Treatment rule 2: the wait a fresh cold step needs at `now`, in whole seconds (0: none). */
+function coldWaitSeconds(context: TreatmentRunContext, now: number, currentIsCold: boolean): number {
+  const ms = coldWaitMs({
+    now,
+    // Snapshots stored by an older build have no such field: they count from nothing, as they did.
+    lastColdEndedAt: context.lastColdEndedAt ?? null,
+    currentIsCold,
+    minColdIntervalSeconds: context.plan.minColdIntervalSeconds,
+  });
+  return Math.ceil(ms / 1000);
+}
+
+/** A step coming off at `at`: when it is cold, the next cold step's wait counts from here. */
+function coldEnded(context: TreatmentRunContext, at: number): Partial<TreatmentRunContext> {
+  return context.step && isCold(context.step.kind) ? { lastColdEndedAt: at } : {};
+}
+
+const eventAt = (context: TreatmentRunContext, event: { type: string }) => timeOf(context, event, undefined);
 
 /**
  * A timed step of back to cold: its timer, or a TICK past its deadline after a restore, moves on to `next`;
@@ -264,9 +288,14 @@ export const treatmentRunMachine = setup({
     canPause: ({ context }) => context.step?.kind !== 'cold-pack',
     isColdContraindicated: ({ context }) => context.plan.backToCold === 'stop-elevate-refer',
     isAcutePhase: ({ context }) => context.plan.phase === 'acute',
-    // decisions.md: after ice the skin gets the clinic's minimum interval before a fresh cold pack.
-    needsWaitBeforeCold: ({ context }) =>
-      context.step !== null && stepKindInfo[context.step.kind].cold && context.plan.minColdIntervalSeconds > 0,
+    // Treatment rule 2 (decisions.md): a fresh cold pack waits until the clinic's minimum interval has passed
+    // since the last cold step came off, whether that was this step, or one a rest or a check ago.
+    needsWaitBeforeCold: ({ context, event }) =>
+      coldWaitSeconds(context, eventAt(context, event), context.step !== null && isCold(context.step.kind)) > 0,
+    nextPlanStepMustWait: ({ context }) => {
+      const next = context.plan.steps[context.currentIndex + 1];
+      return next !== undefined && isCold(next.kind) && coldWaitSeconds(context, context.lastAt, false) > 0;
+    },
   },
   actions: {
     noteTime: enqueueActions(({ context, event, enqueue, self }) => {
@@ -284,8 +313,9 @@ export const treatmentRunMachine = setup({
       enqueue.assign({ ...startStep(planStep(context.plan, index), context.lastAt), currentIndex: index });
     }),
     startWaitBeforeCold: enqueueActions(({ context, enqueue }) => {
+      // The step just interrupted has already been logged, and if it was cold, it came off now.
       enqueue.assign({
-        ...startStep(fallbackStep(context.plan, 'rest-recheck'), context.lastAt),
+        ...startStep(fallbackStep(context.plan, 'rest-recheck', coldWaitSeconds(context, context.lastAt, false)), context.lastAt),
         interruptedKind: context.interruptedKind ?? context.step?.kind ?? null,
       });
     }),
@@ -294,6 +324,11 @@ export const treatmentRunMachine = setup({
         ...startStep(fallbackStep(context.plan, 'cold-pack'), context.lastAt),
         interruptedKind: context.interruptedKind ?? context.step?.kind ?? null,
       });
+    }),
+    startWaitBeforePlanCold: enqueueActions(({ context, enqueue }) => {
+      // Skipped or quickly confirmed steps can bring the plan's next cold step closer than planned.
+      const wait = fallbackStep(context.plan, 'rest-recheck', coldWaitSeconds(context, context.lastAt, false));
+      enqueue.assign(startStep({ ...wait, stage: 'plan' }, context.lastAt));
     }),
     startCompression: enqueueActions(({ context, enqueue }) => {
       // Untimed: the wrap is done when the therapist says so; the plan's seconds stay on screen as a guide.
@@ -311,7 +346,7 @@ export const treatmentRunMachine = setup({
             ...(late >= 1000 ? { detail: `ended unseen (table mode closed or asleep); noticed ${wholeSeconds(late)} s later` } : {}),
           }),
         ],
-        patch: { deadline: null },
+        patch: { deadline: null, ...coldEnded(context, context.lastAt) },
       });
     }),
     recordStepConfirmed: enqueueActions(({ context, enqueue }) => {
@@ -336,7 +371,28 @@ export const treatmentRunMachine = setup({
             detail: context.step?.optional ? 'optional step' : 'required step',
           }),
         ],
-        patch: { deadline: null, remainingMs: null },
+        patch: { deadline: null, remainingMs: null, ...coldEnded(context, now) },
+      });
+    }),
+    /** Skipping during the wait before a cold plan step skips that cold step: the wait was only for it. */
+    recordWaitedStepSkipped: enqueueActions(({ context, event, enqueue }) => {
+      assertEvent(event, 'SKIP');
+      const index = context.currentIndex + 1;
+      const step = context.plan.steps[index];
+      commit(enqueue, context, {
+        entries: [
+          {
+            type: 'step-skipped',
+            stepIndex: index,
+            kind: step.kind,
+            plannedSeconds: step.seconds,
+            actualSeconds: 0,
+            at: iso(context.lastAt),
+            reason: event.reason.trim(),
+            detail: `${step.optional ? 'optional step' : 'required step'}; skipped while waiting before cold`,
+          },
+        ],
+        patch: { currentIndex: index, deadline: null, remainingMs: null },
       });
     }),
     recordStepInterrupted: enqueueActions(({ context, event, enqueue }) => {
@@ -351,6 +407,7 @@ export const treatmentRunMachine = setup({
             : event.reason.trim();
       commit(enqueue, context, {
         entries: [stepEntry('step-interrupted', context, now, { actualSeconds: wholeSeconds(elapsedMs(context, now)), reason })],
+        patch: coldEnded(context, now),
       });
     }),
     recordSwellingIncreased: enqueueActions(({ context, enqueue }) => {
@@ -380,7 +437,7 @@ export const treatmentRunMachine = setup({
     }),
     extendStep: enqueueActions(({ context, enqueue }) => {
       const step = context.step!;
-      const max = stepKindInfo[step.kind].bounds.max;
+      const max = maxStepSeconds(step.kind);
       const planned = step.seconds + context.extendedSeconds;
       // decisions.md: no step may be extended past its safety bound, so clip to it and say so.
       const added = Math.max(0, Math.min(extendStepSeconds, max - planned));
@@ -456,6 +513,7 @@ export const treatmentRunMachine = setup({
     logSeq: 0,
     swellingChecks: 0,
     lastSwelling: null,
+    lastColdEndedAt: null,
     interruptedKind: null,
     outcome: null,
     startedAt: null,
@@ -543,8 +601,20 @@ export const treatmentRunMachine = setup({
             TICK: { actions: 'noteTime' },
           },
         },
+        // Treatment rule 2 at run time: no pause, no extension; skipping skips the cold step it waits for.
+        waitBeforeCold: {
+          after: { stepTimer: { target: 'inStep', actions: ['noteTime', 'recordStepTimedOut', 'startNextStep'] } },
+          on: {
+            TICK: [
+              { guard: 'isDeadlinePassed', target: 'inStep', actions: ['noteTime', 'recordStepTimedOut', 'startNextStep'] },
+              { target: 'waitBeforeCold', reenter: true, actions: 'noteTime' },
+            ],
+            SKIP: { guard: 'hasReason', target: 'advance', actions: ['noteTime', 'recordWaitedStepSkipped'] },
+          },
+        },
         advance: {
           always: [
+            { guard: and(['hasNextStep', 'nextPlanStepMustWait']), target: 'waitBeforeCold', actions: 'startWaitBeforePlanCold' },
             { guard: 'hasNextStep', target: 'inStep', actions: 'startNextStep' },
             { target: '#treatmentRun.complete', actions: 'recordRunCompleted' },
           ],

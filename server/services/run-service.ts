@@ -97,6 +97,8 @@ async function planFor(actor: SessionUser, injury: Injury, screening: Screening 
     padSize: toPlanPad(view.assessment.padSize),
     coldContraindicated: outcome?.coldContraindicated ?? false,
     suspectedMyositis: outcome?.suspectedMyositis ?? false,
+    bleedingRisk: outcome?.bleedingRisk ?? false,
+    openSkin: outcome?.openSkin ?? false,
     minColdIntervalSeconds: settings.minColdIntervalMinutes * 60,
   });
   return { plan, phase: view.phase, sequenceId: sequence.id, sequenceVersion: sequence.version };

@@ -3,7 +3,10 @@ import type { SessionUser } from '../../shared/auth/schemas';
 import { phases, type Phase } from '../../shared/phase';
 import { defaultSequences, type Sequence as SequenceBody } from '../../shared/plan/sequence';
 import type { SequenceView } from '../../shared/runs/responses';
+import { stepRuleIssues } from '../../shared/plan/treatment-rules';
+import { AppError } from '../errors';
 import { Sequence, User } from '../models';
+import { getClinicSettings } from './clinic-settings-service';
 import { recordAudit } from './audit-service';
 
 /** The clinic's newest version for a phase; a clinic that never saved one starts from our defaults as version 1. */
@@ -36,6 +39,12 @@ export async function listCurrentSequences(actor: SessionUser): Promise<Sequence
 
 /** A save is a new version; runs keep the version (and plan) they ran. */
 export async function saveSequence(actor: SessionUser, body: SequenceBody): Promise<SequenceView> {
+  // The schema checked the shortest interval a clinic may set; the clinic's own interval is checked here.
+  const settings = await getClinicSettings(actor.clinicId);
+  const issues = stepRuleIssues(body.phase, body.steps, settings.minColdIntervalMinutes * 60);
+  if (issues.length > 0) {
+    throw AppError.badRequest(issues[0].message, Object.fromEntries(issues.map((issue) => [`steps.${issue.index}.${issue.field}`, issue.message])));
+  }
   const saved = await Sequence.sequelize!.transaction(async (transaction) => {
     const latest = await currentSequence(actor.clinicId, body.phase, transaction);
     const created = await Sequence.create(

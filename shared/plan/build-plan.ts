@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { phaseSchema, type Phase } from '../phase';
 import { maxSequenceSteps, type Sequence } from './sequence';
 import { boundsMessage, isWithinBounds, stepKindInfo, stepKindSchema, type StepKind } from './step-kinds';
+import { coldGapBefore, coldTooSoonMessage, exclusionReason, isCold, stepRuleIssues, type PlanRestrictions } from './treatment-rules';
 
 /** A run's plan: the clinic's sequence for the phase, adjusted for this athlete's screening and tolerance. */
 
@@ -78,7 +79,7 @@ export const planSchema = z
       if (!isWithinBounds(step.kind, step.seconds)) {
         ctx.addIssue({ code: 'custom', path: ['steps', position, 'seconds'], message: boundsMessage(step.kind) });
       }
-      if (plan.backToCold === 'stop-elevate-refer' && stepKindInfo[step.kind].cold) {
+      if (plan.backToCold === 'stop-elevate-refer' && isCold(step.kind)) {
         ctx.addIssue({
           code: 'custom',
           path: ['steps', position, 'kind'],
@@ -86,6 +87,10 @@ export const planSchema = z
         });
       }
     });
+    // The treatment rules hold for every plan, stored or built, so the machine never plays an unsafe one.
+    for (const issue of stepRuleIssues(plan.phase, plan.steps, plan.minColdIntervalSeconds)) {
+      ctx.addIssue({ code: 'custom', path: ['steps', issue.index, issue.field], message: issue.message });
+    }
   });
 export type Plan = z.infer<typeof planSchema>;
 export type PlanInput = z.input<typeof planSchema>;
@@ -97,6 +102,10 @@ export interface BuildPlanArgs {
   padSize?: PadSize | null;
   coldContraindicated: boolean;
   suspectedMyositis: boolean;
+  /** Screening ticked anticoagulants or a bleeding disorder: no deep work (massage cautions, common practice). */
+  bleedingRisk?: boolean;
+  /** Screening ticked open skin over the area: no deep work (massage cautions, common practice). */
+  openSkin?: boolean;
   /** The clinic's minimum break before a fresh cold pack; defaults to 10 minutes. */
   minColdIntervalSeconds?: number;
 }
@@ -106,6 +115,10 @@ export const cautionTexts = {
     'Cold is contraindicated: cold pack and ice massage are left out. If swelling increases: stop, elevate and refer.',
   suspectedMyositis:
     'Suspected myositis ossificans: no friction, broadening or stripping; keep light work away from the firm area. Refer for imaging.',
+  bleedingRisk:
+    'Anticoagulants or a bleeding disorder: no friction, broadening or stripping; light work only, and watch for new bruising.',
+  openSkin: 'Open skin over the area: no friction, broadening or stripping; keep work and ice off the open skin.',
+  lightTolerance: 'Light tolerance: hands-on steps are shortened to three quarters of their time.',
   nothingLeft:
     'No steps are left after the screening changes: do not start table mode; go over the plan with your supervisor.',
 } as const;
@@ -140,37 +153,71 @@ export function adjustedSeconds(kind: StepKind, seconds: number, tolerance: Tole
   return Math.min(info.bounds.max, Math.max(info.bounds.min, Math.round(seconds * lightToleranceFactor)));
 }
 
+/** Steps of the same kind left out for the same reason are named once, in the order they came. */
+function leftOutText(removed: { kind: StepKind; reason: string }[]): string[] {
+  const byReason = new Map<string, string[]>();
+  for (const { kind, reason } of removed) {
+    const labels = byReason.get(reason) ?? [];
+    if (!labels.includes(stepKindInfo[kind].label)) labels.push(stepKindInfo[kind].label);
+    byReason.set(reason, labels);
+  }
+  return [...byReason].map(([reason, labels]) => `Left out of this plan: ${labels.join(', ')} (${reason}).`);
+}
+
 export function buildPlan(args: BuildPlanArgs): Plan {
   const { phase, sequence, tolerance, coldContraindicated, suspectedMyositis } = args;
   const padSize = args.padSize ?? null;
+  const minColdIntervalSeconds = args.minColdIntervalSeconds ?? defaultMinColdIntervalSeconds;
   if (sequence.phase !== phase) {
     throw new RangeError(`The sequence is for the ${sequence.phase} phase, not ${phase}`);
   }
 
-  const kept = sequence.steps.filter((step) => {
-    const info = stepKindInfo[step.kind];
-    if (coldContraindicated && info.cold) return false;
-    if (suspectedMyositis && info.deepWork) return false;
-    return true;
-  });
+  const deepWorkReasons: string[] = [
+    suspectedMyositis ? cautionTexts.suspectedMyositis : null,
+    args.bleedingRisk ? cautionTexts.bleedingRisk : null,
+    args.openSkin ? cautionTexts.openSkin : null,
+  ].filter((text) => text !== null);
+  const restrictions: PlanRestrictions = { coldContraindicated, deepWorkReasons };
+  const cautions: string[] = [...(coldContraindicated ? [cautionTexts.coldContraindicated] : []), ...deepWorkReasons];
 
-  const steps: PlanStep[] = kept.map((step, index) => {
+  const removed: { kind: StepKind; reason: string }[] = [];
+  const kept = sequence.steps
+    .filter((step) => {
+      const reason = exclusionReason(step.kind, phase, restrictions);
+      if (reason) removed.push({ kind: step.kind, reason });
+      return reason === null;
+    })
+    .map((step) => ({ ...step, seconds: adjustedSeconds(step.kind, step.seconds, tolerance) }));
+
+  // Leaving steps out or shortening them can bring two cold steps closer than the clinic's interval: the later
+  // cold step goes, and the plan says why (treatment rule 2).
+  const timed: typeof kept = [];
+  for (const step of kept) {
+    const gap = isCold(step.kind) ? coldGapBefore([...timed, step], timed.length) : null;
+    if (gap !== null && gap < minColdIntervalSeconds) {
+      cautions.push(`Left out of this plan: ${coldTooSoonMessage(step.kind, gap, minColdIntervalSeconds)}.`);
+      continue;
+    }
+    timed.push(step);
+  }
+  cautions.push(...leftOutText(removed));
+  if (tolerance === 'light' && timed.some((step) => stepKindInfo[step.kind].handsOn)) {
+    cautions.push(cautionTexts.lightTolerance);
+  }
+
+  const steps: PlanStep[] = timed.map((step, index) => {
     const info = stepKindInfo[step.kind];
     return {
       index,
       kind: step.kind,
       label: info.label,
-      seconds: adjustedSeconds(step.kind, step.seconds, tolerance),
+      seconds: step.seconds,
       cue: stepCue(step.kind, phase, padSize),
       needsConfirm: info.needsConfirm,
       handsOn: info.handsOn,
       optional: step.optional,
     };
   });
-
-  const cautions: string[] = [];
-  if (coldContraindicated) cautions.push(cautionTexts.coldContraindicated);
-  if (suspectedMyositis) cautions.push(cautionTexts.suspectedMyositis);
   if (steps.length === 0) cautions.push(cautionTexts.nothingLeft);
 
   return planSchema.parse({
@@ -180,6 +227,6 @@ export function buildPlan(args: BuildPlanArgs): Plan {
     cautions,
     backToCold: coldContraindicated ? 'stop-elevate-refer' : 'cold-and-compression',
     padSize,
-    minColdIntervalSeconds: args.minColdIntervalSeconds ?? defaultMinColdIntervalSeconds,
+    minColdIntervalSeconds,
   });
 }

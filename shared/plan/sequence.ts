@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { phaseSchema, type Phase } from '../phase';
-import { boundsMessage, isWithinBounds, stepKindInfo, stepKindSchema } from './step-kinds';
+import { boundsMessage, isWithinBounds, stepKindSchema } from './step-kinds';
+import { shortestMinColdIntervalSeconds, stepRuleIssues } from './treatment-rules';
 
 /** A clinic's template of steps for one phase. Its bounds are checked here so client and server agree. */
 
@@ -33,17 +34,11 @@ export const sequenceSchema = z
       .max(maxSequenceSteps, `A sequence can hold at most ${maxSequenceSteps} steps`),
   })
   .superRefine((sequence, ctx) => {
-    if (sequence.phase !== 'acute') return;
-    sequence.steps.forEach((step, index) => {
-      // "No massage for 24–72 h" (common practice): cold, compression, rest and movement only while acute.
-      if (stepKindInfo[step.kind].massage) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['steps', index, 'kind'],
-          message: `${stepKindInfo[step.kind].label} is massage and cannot be part of an acute sequence`,
-        });
-      }
-    });
+    // The treatment rules (shared/plan/treatment-rules.ts), checked against the shortest interval a clinic can
+    // set; the sequence service checks the clinic's own interval when it saves.
+    for (const issue of stepRuleIssues(sequence.phase, sequence.steps, shortestMinColdIntervalSeconds)) {
+      ctx.addIssue({ code: 'custom', path: ['steps', issue.index, issue.field], message: issue.message });
+    }
   });
 export type Sequence = z.infer<typeof sequenceSchema>;
 export type SequenceInput = z.input<typeof sequenceSchema>;

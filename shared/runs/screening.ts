@@ -111,6 +111,10 @@ export interface ScreeningOutcome {
   redFlags: RedFlagId[];
   coldContraindicated: boolean;
   suspectedMyositis: boolean;
+  /** Anticoagulants or a bleeding disorder: deep work leaves the plan (treatment rule 4). */
+  bleedingRisk: boolean;
+  /** Open skin over the area: deep work leaves the plan (treatment rule 4). */
+  openSkin: boolean;
 }
 
 type ScreeningAnswers = Pick<Screening, 'redFlags' | 'coldContraindications' | 'massageCautions'>;
@@ -121,7 +125,14 @@ export function screeningOutcome(answers: ScreeningAnswers): ScreeningOutcome {
   const anyCaution = coldContraindicated || answers.massageCautions.length > 0;
   // A red flag outranks everything: the run stops and the athlete is referred, whatever else was ticked.
   const outcome: ScreeningOutcomeKind = answers.redFlags.length > 0 ? 'refer' : anyCaution ? 'caution' : 'clear';
-  return { outcome, redFlags: [...answers.redFlags], coldContraindicated, suspectedMyositis };
+  return {
+    outcome,
+    redFlags: [...answers.redFlags],
+    coldContraindicated,
+    suspectedMyositis,
+    bleedingRisk: answers.massageCautions.includes('anticoagulants-or-bleeding-disorder'),
+    openSkin: answers.massageCautions.includes('open-skin'),
+  };
 }
 
 export function redFlagLabel(id: string): string {

@@ -220,16 +220,54 @@ describe('a treatment run', () => {
       ]);
     });
 
-    it('when swelling increases during light strokes, the run goes straight to a cold pack', () => {
+    it('when swelling increases during light strokes soon after the ice massage, the run waits out the rest of the minimum interval', () => {
+      // Wait 600 s from the end of the ice massage: the clinic's minimum interval, default 10 min (decisions.md).
       const run = startRun(planFor('proliferative'));
       run.send({ type: 'BEGIN' });
       run.advanceSteps(360, 45);
 
       run.send({ type: 'SWELLING_INCREASED' });
 
+      expect(run.snapshot().matches({ backToCold: 'waitBeforeCold' })).toBe(true);
+      expect(left(run)).toBe(555_000);
+      expect(run.entries()[1]).toMatchObject({ type: 'step-interrupted', kind: 'light-strokes', actualSeconds: 45 });
+      run.advance(555_000 - 1);
+      expect(run.snapshot().matches({ backToCold: 'waitBeforeCold' })).toBe(true);
+      run.advance(1);
       expect(run.snapshot().matches({ backToCold: 'coldPack' })).toBe(true);
       expect(left(run)).toBe(1200_000);
-      expect(run.entries()[1]).toMatchObject({ type: 'step-interrupted', kind: 'light-strokes', actualSeconds: 45 });
+    });
+
+    it('ice massage for 7 minutes, a 30-second rest and then increased swelling waits before the cold pack', () => {
+      // The hole this closes: the cold pack used to start at once, 30 s after 7 minutes of ice.
+      const sequence = sequenceSchema.parse({
+        phase: 'proliferative',
+        steps: [
+          { kind: 'ice-massage', seconds: 420 },
+          { kind: 'rest-recheck', seconds: 30 },
+          { kind: 'light-strokes', seconds: 300 },
+        ],
+      });
+      const run = startRun(buildPlan({ phase: 'proliferative', sequence, tolerance: 'usual', coldContraindicated: false, suspectedMyositis: false }));
+      run.send({ type: 'BEGIN' });
+      run.advanceSteps(420, 30);
+      expect(run.snapshot().matches({ running: 'awaitingConfirm' })).toBe(true);
+
+      run.send({ type: 'SWELLING_INCREASED' });
+
+      expect(run.snapshot().matches({ backToCold: 'waitBeforeCold' })).toBe(true);
+      expect(left(run)).toBe(570_000);
+    });
+
+    it('with no cold before it, swelling during the warm-up goes straight to a cold pack', () => {
+      const run = startRun(planFor('remodelling'));
+      run.send({ type: 'BEGIN' });
+      run.advance(45 * second);
+
+      run.send({ type: 'SWELLING_INCREASED' });
+
+      expect(run.snapshot().matches({ backToCold: 'coldPack' })).toBe(true);
+      expect(left(run)).toBe(1200_000);
     });
 
     it('swelling during a pause interrupts the step with the time it ran before the pause', () => {
@@ -270,6 +308,7 @@ describe('a treatment run', () => {
       run.advanceSteps(600, 10);
 
       run.send({ type: 'SWELLING_INCREASED' });
+      run.advance(590 * second);
 
       expect(currentStep(run.snapshot())).toMatchObject({ kind: 'cold-pack', seconds: 600 });
     });
@@ -299,18 +338,18 @@ describe('a treatment run', () => {
 
     it('the wrap after the cold pack names the pad size', () => {
       const padSize = { minLengthCm: 10, maxLengthCm: 15, minWidthCm: 6, maxWidthCm: 9 };
-      const run = startRun(planFor('proliferative', { padSize }));
+      const run = startRun(planFor('remodelling', { padSize }));
       run.send({ type: 'BEGIN' });
-      run.advanceSteps(360, 40);
+      run.advance(40 * second);
       run.send({ type: 'SWELLING_INCREASED' });
       run.advance(1200 * second);
       expect(currentStep(run.snapshot())?.cue).toBe('Felt pad 10–15 × 6–9 cm; figure-of-eight wrap, below to above');
     });
 
     it('a further swelling increase during back to cold is logged and cold goes on', () => {
-      const run = startRun(planFor('proliferative'));
+      const run = startRun(planFor('remodelling'));
       run.send({ type: 'BEGIN' });
-      run.advanceSteps(360, 40);
+      run.advance(40 * second);
       run.send({ type: 'SWELLING_INCREASED' });
       run.advance(5 * minute);
 
@@ -322,9 +361,9 @@ describe('a treatment run', () => {
     });
 
     it('back to cold cannot be paused or skipped', () => {
-      const run = startRun(planFor('proliferative'));
+      const run = startRun(planFor('remodelling'));
       run.send({ type: 'BEGIN' });
-      run.advanceSteps(360, 40);
+      run.advance(40 * second);
       run.send({ type: 'SWELLING_INCREASED' });
 
       run.send({ type: 'PAUSE' });
@@ -755,9 +794,9 @@ describe('a treatment run', () => {
     });
 
     it('a restored back-to-cold cold pack resumes its countdown', () => {
-      const stored = startRun(planFor('proliferative'));
+      const stored = startRun(planFor('remodelling'));
       stored.send({ type: 'BEGIN' });
-      stored.advanceSteps(360, 40);
+      stored.advance(40 * second);
       stored.send({ type: 'SWELLING_INCREASED' });
       stored.advance(5 * minute);
 
@@ -865,7 +904,8 @@ describe('a treatment run', () => {
       run.send({ type: 'SKIP', reason: 'athlete guarding' });
       run.advance(30 * second);
       run.send({ type: 'SWELLING_INCREASED' });
-      run.advance(20 * minute);
+      // 150 s since the ice came off: 450 s of the minimum interval left (decisions.md), then the cold pack.
+      run.advanceSteps(450, 1200);
       run.send({ type: 'NEXT' });
 
       expect(run.snapshot().matches('fellBack')).toBe(true);
@@ -882,6 +922,7 @@ describe('a treatment run', () => {
         'step-skipped',
         'step-interrupted',
         'swelling-check',
+        'step-completed',
         'step-completed',
         'step-completed',
         'run-fell-back',

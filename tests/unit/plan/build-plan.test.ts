@@ -86,7 +86,7 @@ describe('building a run plan', () => {
     expect(kindsOf(built)).toEqual(['light-strokes', 'passive-movement', 'active-movement', 'rest-recheck']);
     expect(built.steps.map((step) => step.index)).toEqual([0, 1, 2, 3]);
     expect(built.backToCold).toBe('stop-elevate-refer');
-    expect(built.cautions).toEqual([cautionTexts.coldContraindicated]);
+    expect(built.cautions).toEqual([cautionTexts.coldContraindicated, 'Left out of this plan: Ice massage (cold is contraindicated).']);
   });
 
   it('an acute plan without cold keeps the wrap and the re-check', () => {
@@ -97,14 +97,17 @@ describe('building a run plan', () => {
     // Deep work locally contraindicated, refer for imaging: Phys Sportsmed 1995;23(2):77–82 (authors and title not retrieved).
     const built = plan('remodelling', { suspectedMyositis: true });
     expect(kindsOf(built)).toEqual(['warm-up-strokes', 'ice-massage']);
-    expect(built.cautions).toHaveLength(1);
+    expect(built.cautions).toHaveLength(2);
     expect(built.cautions[0]).toMatch(/refer for imaging/i);
+    expect(built.cautions[1]).toBe(
+      'Left out of this plan: Cross-fibre friction, Multidirectional friction, Passive broadening, Active broadening, Passive stripping, Active stripping (deep work is not allowed after the screening).',
+    );
   });
 
   it('both adjustments together leave only the warm-up in remodelling, with both cautions', () => {
     const built = plan('remodelling', { suspectedMyositis: true, coldContraindicated: true });
     expect(kindsOf(built)).toEqual(['warm-up-strokes']);
-    expect(built.cautions).toEqual([cautionTexts.coldContraindicated, cautionTexts.suspectedMyositis]);
+    expect(built.cautions.slice(0, 2)).toEqual([cautionTexts.coldContraindicated, cautionTexts.suspectedMyositis]);
   });
 
   it('a sequence of deep work only leaves an empty plan that says not to start', () => {

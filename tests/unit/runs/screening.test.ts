@@ -57,6 +57,8 @@ describe('screening before a run', () => {
       redFlags: [],
       coldContraindicated: false,
       suspectedMyositis: false,
+      bleedingRisk: false,
+      openSkin: false,
     });
   });
 
@@ -77,6 +79,8 @@ describe('screening before a run', () => {
       redFlags: [],
       coldContraindicated: true,
       suspectedMyositis: false,
+      bleedingRisk: false,
+      openSkin: false,
     });
   });
 
