@@ -329,6 +329,51 @@ describe('a treatment run', () => {
       expect(run.snapshot().matches({ backToCold: 'waitBeforeCold' })).toBe(true);
     });
 
+    describe('a cold step of the plan brought closer than planned', () => {
+      // Ice 6 min, a 10-minute rest the therapist may confirm early, ice again: 10 min apart as planned
+      // (the clinic's minimum interval, default 10 min, decisions.md).
+      const sequence = sequenceSchema.parse({
+        phase: 'proliferative',
+        steps: [
+          { kind: 'ice-massage', seconds: 360 },
+          { kind: 'rest-recheck', seconds: 600 },
+          { kind: 'ice-massage', seconds: 300 },
+          { kind: 'light-strokes', seconds: 300 },
+        ],
+      });
+      const plan = () => buildPlan({ phase: 'proliferative', sequence, tolerance: 'usual', coldContraindicated: false, suspectedMyositis: false });
+
+      it('waits out the rest of the interval when the rest is confirmed early', () => {
+        const run = startRun(plan());
+        run.send({ type: 'BEGIN' });
+        run.advanceSteps(360, 30);
+        run.send({ type: 'NEXT' });
+
+        expect(run.snapshot().matches({ running: 'waitBeforeCold' })).toBe(true);
+        expect(currentStep(run.snapshot())).toMatchObject({ kind: 'rest-recheck', label: 'Wait before cold', seconds: 570, index: null });
+        expect(nextStep(run.snapshot())).toMatchObject({ kind: 'ice-massage', index: 2 });
+        run.send({ type: 'PAUSE' });
+        run.send({ type: 'EXTEND' });
+        run.advance(570 * second - 1);
+        expect(stepKind(run)).toBe('rest-recheck');
+        run.advance(1);
+        expect(currentStep(run.snapshot())).toMatchObject({ kind: 'ice-massage', index: 2 });
+        expect(run.entries().at(-1)).toMatchObject({ type: 'step-completed', kind: 'rest-recheck', actualSeconds: 570, detail: 'wait before cold' });
+      });
+
+      it('skipping during the wait skips the cold step it waits for', () => {
+        const run = startRun(plan());
+        run.send({ type: 'BEGIN' });
+        run.advanceSteps(360, 30);
+        run.send({ type: 'NEXT' });
+
+        run.send({ type: 'SKIP', reason: 'no soreness after the rest' });
+
+        expect(currentStep(run.snapshot())).toMatchObject({ kind: 'light-strokes', index: 3 });
+        expect(run.entries().at(-1)).toMatchObject({ type: 'step-skipped', kind: 'ice-massage', stepIndex: 2, actualSeconds: 0, reason: 'no soreness after the rest' });
+      });
+    });
+
     it("the clinic's own minimum interval sets the wait", () => {
       const run = startRun(planFor('proliferative', { minColdIntervalSeconds: 900 }));
       run.send({ type: 'BEGIN' });

@@ -205,11 +205,11 @@ describe('cues between looks at a treatment run', () => {
     expect(names(heard).filter((n) => n === 'step-start')).toEqual(['step-start']);
   });
 
-  it('"swelling has increased" during light strokes plays back-to-cold once, not a step start', () => {
-    const run = startRun(planFor('proliferative'));
+  it('"swelling has increased" during warm-up strokes plays back-to-cold once, not a step start', () => {
+    // No cold before it, so the cold pack starts at once (treatment rule 2 waits only after cold).
+    const run = startRun(planFor('remodelling'));
     run.send({ type: 'BEGIN' });
-    const iceSeconds = run.snapshot().context.plan.steps[0].seconds;
-    const before = watch(run, iceSeconds * second + 30 * second);
+    const before = watch(run, 30 * second);
 
     run.send({ type: 'SWELLING_INCREASED' });
     const look = observeRun(run.snapshot(), run.clock.now() + 100);
