@@ -6,6 +6,7 @@ const app = buildTestApp();
 let therapist: Awaited<ReturnType<typeof signedInAgent>>;
 let otherClinic: Awaited<ReturnType<typeof signedInAgent>>;
 let supervisorEmail: string;
+let adminEmail: string;
 
 const hoursAgo = (h: number) => new Date(Date.now() - h * 3_600_000).toISOString();
 const clear = { redFlags: [], coldContraindications: [], massageCautions: [], tolerance: 'usual', cautionsAcknowledged: false };
@@ -15,6 +16,7 @@ beforeAll(async () => {
   const other = await createClinic();
   therapist = await signedInAgent(app, (await createStaff(clinic.id, 'therapist')).email);
   supervisorEmail = (await createStaff(clinic.id, 'supervisor')).email;
+  adminEmail = (await createStaff(clinic.id, 'admin')).email;
   otherClinic = await signedInAgent(app, (await createStaff(other.id, 'therapist')).email);
 });
 
@@ -92,6 +94,17 @@ describe('starting a run', () => {
     const run = await startRun(injury.id, { ...clear, coldContraindications: ['raynauds'], cautionsAcknowledged: true });
     expect(run.plan.steps.some((s: { kind: string }) => s.kind === 'ice-massage' || s.kind === 'cold-pack')).toBe(false);
     expect(run.plan.backToCold).toBe('stop-elevate-refer');
+  });
+
+  it.each(['anticoagulants-or-bleeding-disorder', 'open-skin'])('%s at screening takes deep work out of the plan, and the plan says so', async (caution) => {
+    // Massage cautions: anticoagulants or bleeding disorders, open skin (clinical notes: common practice).
+    const injury = await injuryDaysAgo(25);
+    const run = await startRun(injury.id, { ...clear, massageCautions: [caution], cautionsAcknowledged: true });
+    expect(run.phase).toBe('remodelling');
+    const kinds = run.plan.steps.map((s: { kind: string }) => s.kind);
+    expect(kinds.filter((kind: string) => /friction|broadening|stripping/.test(kind))).toEqual([]);
+    expect(run.plan.cautions.join(' ')).toMatch(/no friction, broadening or stripping/);
+    expect(run.plan.cautions.join(' ')).toMatch(/Left out of this plan: Cross-fibre friction/);
   });
 
   it('a caution must be acknowledged: 400 naming cautionsAcknowledged', async () => {
@@ -222,6 +235,39 @@ describe('sequences', () => {
     const saved = await supervisor.put('/api/sequences').send({ phase: 'proliferative', steps: shorter });
     expect(saved.status).toBe(200);
     expect(saved.body.sequence.version).toBe(current.version + 1);
+  });
+
+  it('a cold pack 30 seconds after an ice massage is refused, naming the step', async () => {
+    // Treatment rule 2: the clinic's minimum interval between cold steps (decisions.md, default 10 min).
+    const supervisor = await signedInAgent(app, supervisorEmail);
+    const steps = [
+      { kind: 'ice-massage', seconds: 420 },
+      { kind: 'rest-recheck', seconds: 30 },
+      { kind: 'cold-pack', seconds: 1200 },
+    ];
+    const refused = await supervisor.put('/api/sequences').send({ phase: 'proliferative', steps });
+    expect(refused.status).toBe(400);
+    expect(Object.keys(refused.body.error.fields)).toEqual(['steps.2.kind']);
+  });
+
+  it("a sequence is checked against the clinic's own minimum interval", async () => {
+    const supervisor = await signedInAgent(app, supervisorEmail);
+    const admin = await signedInAgent(app, adminEmail);
+    const steps = [
+      { kind: 'ice-massage', seconds: 360 },
+      { kind: 'light-strokes', seconds: 600 },
+      { kind: 'passive-movement', seconds: 180 },
+      { kind: 'ice-massage', seconds: 360 },
+    ];
+    expect((await admin.put('/api/settings').send({ minColdIntervalMinutes: 15 })).status).toBe(200);
+    try {
+      const refused = await supervisor.put('/api/sequences').send({ phase: 'proliferative', steps });
+      expect(refused.status).toBe(400);
+      expect(refused.body.error.fields['steps.3.kind']).toMatch(/13 min after the previous cold step.*15 min/);
+    } finally {
+      expect((await admin.put('/api/settings').send({ minColdIntervalMinutes: 10 })).status).toBe(200);
+    }
+    expect((await supervisor.put('/api/sequences').send({ phase: 'proliferative', steps })).status).toBe(200);
   });
 
   it('a therapist cannot change a sequence', async () => {
