@@ -85,6 +85,10 @@ export interface TreatmentRunContext {
   logSeq: number;
   swellingChecks: number;
   lastSwelling: (typeof swellingCheckDetails)[keyof typeof swellingCheckDetails] | null;
+  /** Swelling was found increased during the step on screen: its check is logged once, never also "not increased". */
+  stepSwellingIncreased: boolean;
+  /** Swelling was found increased at any point of the run: an acute run then ends as a fall back and alerts. */
+  swellingIncreased: boolean;
   /** When the last cold step came off (ms since the epoch), for the wait before the next (treatment rule 2). */
   lastColdEndedAt: number | null;
   /** The step that swelling interrupted, when the run went back to cold. */
@@ -180,6 +184,7 @@ function startStep(step: RunStep, at: number, timed = true): Partial<TreatmentRu
     remainingMs: null,
     extendedSeconds: 0,
     extendRefused: false,
+    stepSwellingIncreased: false,
   };
 }
 
@@ -288,6 +293,9 @@ export const treatmentRunMachine = setup({
     canPause: ({ context }) => context.step?.kind !== 'cold-pack',
     isColdContraindicated: ({ context }) => context.plan.backToCold === 'stop-elevate-refer',
     isAcutePhase: ({ context }) => context.plan.phase === 'acute',
+    // Older stored snapshots lack these fields: undefined reads as "not found".
+    isSwellingAlreadyIncreasedThisStep: ({ context }) => context.stepSwellingIncreased === true,
+    hasSwellingIncreased: ({ context }) => context.swellingIncreased === true,
     // Treatment rule 2 (decisions.md): a fresh cold pack waits until the clinic's minimum interval has passed
     // since the last cold step came off, whether that was this step, or one a rest or a check ago.
     needsWaitBeforeCold: ({ context, event }) =>
@@ -354,7 +362,7 @@ export const treatmentRunMachine = setup({
       const entries = [stepEntry('step-completed', context, now, { actualSeconds: wholeSeconds(elapsedMs(context, now)) })];
       let patch: Partial<TreatmentRunContext> = { deadline: null };
       // Confirming a plan's rest and re-check means the therapist found the swelling no worse.
-      if (context.step?.kind === 'rest-recheck' && context.step.stage === 'plan') {
+      if (context.step?.kind === 'rest-recheck' && context.step.stage === 'plan' && !context.stepSwellingIncreased) {
         entries.push(stepEntry('swelling-check', context, now, { detail: swellingCheckDetails.notIncreased }));
         patch = { ...patch, swellingChecks: context.swellingChecks + 1, lastSwelling: swellingCheckDetails.notIncreased };
       }
@@ -418,7 +426,12 @@ export const treatmentRunMachine = setup({
       }
       commit(enqueue, context, {
         entries: [entry],
-        patch: { swellingChecks: context.swellingChecks + 1, lastSwelling: swellingCheckDetails.increased },
+        patch: {
+          swellingChecks: context.swellingChecks + 1,
+          lastSwelling: swellingCheckDetails.increased,
+          stepSwellingIncreased: true,
+          swellingIncreased: true,
+        },
       });
     }),
     pauseStep: enqueueActions(({ context, enqueue }) => {
@@ -467,6 +480,20 @@ export const treatmentRunMachine = setup({
       if (context.interruptedKind) entry.detail = `back to cold after ${stepKindInfo[context.interruptedKind].label.toLowerCase()}`;
       commit(enqueue, context, { entries: [entry], patch: finished('fell-back', context.lastAt) });
     }),
+    /** Acute: cold and compression went on as planned, but the supervisor must hear that swelling increased. */
+    recordAcuteSwellingFellBack: enqueueActions(({ context, enqueue }) => {
+      commit(enqueue, context, {
+        entries: [
+          {
+            type: 'run-fell-back',
+            at: iso(context.lastAt),
+            reason: 'swelling increased',
+            detail: 'swelling increased in the acute phase; cold and compression went on',
+          },
+        ],
+        patch: finished('fell-back', context.lastAt),
+      });
+    }),
     recordStopElevateRefer: enqueueActions(({ context, enqueue }) => {
       commit(enqueue, context, {
         entries: [
@@ -514,6 +541,8 @@ export const treatmentRunMachine = setup({
     swellingChecks: 0,
     lastSwelling: null,
     lastColdEndedAt: null,
+    stepSwellingIncreased: false,
+    swellingIncreased: false,
     interruptedKind: null,
     outcome: null,
     startedAt: null,
@@ -552,7 +581,9 @@ export const treatmentRunMachine = setup({
             target: 'stopElevateRefer',
             actions: ['noteTime', 'recordStepInterrupted', 'recordSwellingIncreased', 'recordStopElevateRefer'],
           },
-          // Acute: the plan is already cold and compression, so keep going and log the finding.
+          // Acute: the plan is already cold and compression, so keep going and log the finding, once per step;
+          // the run then ends as a fall back so the supervisor is alerted.
+          { guard: and(['isAcutePhase', 'isSwellingAlreadyIncreasedThisStep']), actions: 'noteTime' },
           { guard: 'isAcutePhase', actions: ['noteTime', 'recordSwellingIncreased'] },
           // Any step, not only hands-on ones: the swelling check itself is a rest, and is where it is found.
           // A wait comes first after a cold step, so cold never runs on past its bound.
@@ -616,6 +647,7 @@ export const treatmentRunMachine = setup({
           always: [
             { guard: and(['hasNextStep', 'nextPlanStepMustWait']), target: 'waitBeforeCold', actions: 'startWaitBeforePlanCold' },
             { guard: 'hasNextStep', target: 'inStep', actions: 'startNextStep' },
+            { guard: 'hasSwellingIncreased', target: '#treatmentRun.fellBack', actions: 'recordAcuteSwellingFellBack' },
             { target: '#treatmentRun.complete', actions: 'recordRunCompleted' },
           ],
         },

@@ -457,6 +457,38 @@ describe('a treatment run', () => {
     });
   });
 
+  describe('swelling found at the acute re-check', () => {
+    it('is logged as increased once, never also as not increased, and the run ends as a fall back that alerts', () => {
+      const run = startRun(planFor('acute'));
+      run.send({ type: 'BEGIN' });
+      run.advanceSteps(1200, 180);
+      run.send({ type: 'NEXT' });
+      run.advance(300 * second);
+      expect(stepKind(run)).toBe('rest-recheck');
+
+      run.send({ type: 'SWELLING_INCREASED' });
+      run.send({ type: 'SWELLING_INCREASED' });
+      run.send({ type: 'NEXT' });
+
+      const checks = entriesOfType(run, 'swelling-check');
+      expect(checks).toEqual([expect.objectContaining({ kind: 'rest-recheck', stepIndex: 2, detail: 'increased' })]);
+      expect(run.snapshot().matches('fellBack')).toBe(true);
+      expect(run.snapshot().context.outcome).toBe('fell-back');
+      expect(run.entries().at(-1)).toMatchObject({
+        type: 'run-fell-back',
+        reason: 'swelling increased',
+        detail: 'swelling increased in the acute phase; cold and compression went on',
+      });
+    });
+
+    it('an acute run with no swelling increase still completes', () => {
+      const run = startRun(planFor('acute'));
+      run.send({ type: 'BEGIN' });
+      playThrough(run);
+      expect(run.snapshot().context.outcome).toBe('completed');
+    });
+  });
+
   describe('cold contraindicated', () => {
     it('swelling increasing ends the run with stop, elevate, refer instead of cold', () => {
       // decisions.md: with cold contraindicated, "swelling has increased" ends the run with stop, elevate, refer.
