@@ -1,41 +1,15 @@
-import { useEffect, useRef, useState } from 'react';
 import { Waves } from 'lucide-react';
-
-export const SWELLING_CONFIRM_WINDOW_MS = 3000;
-export const SWELLING_HOLD_MS = 800;
+import type { SwellingConfirm } from '../hooks/use-swelling-confirm';
 
 /**
- * "Swelling has increased": a second tap within three seconds, or a hold, confirms — a brush of an arm
- * does not send the run back to cold. `armedExternally` lets the keyboard (S, then S) share the same state.
+ * "Swelling has increased": a second tap within the window, or a hold, confirms — a brush of an arm does not
+ * send the run back to cold. The rule and its state come from useSwellingConfirm, shared with the keyboard.
  */
-export function SwellingButton({ onConfirm, disabled, label }: { onConfirm: () => void; disabled?: boolean; label: string }) {
-  const [armed, setArmed] = useState(false);
-  const disarmTimer = useRef<ReturnType<typeof setTimeout> | null>(null);
-  const holdTimer = useRef<ReturnType<typeof setTimeout> | null>(null);
-  const held = useRef(false);
-
-  useEffect(
-    () => () => {
-      if (disarmTimer.current) clearTimeout(disarmTimer.current);
-      if (holdTimer.current) clearTimeout(holdTimer.current);
-    },
-    [],
-  );
-
-  const confirm = () => {
-    setArmed(false);
-    if (disarmTimer.current) clearTimeout(disarmTimer.current);
-    onConfirm();
-  };
-
+export function SwellingButton({ confirm, disabled, label }: { confirm: SwellingConfirm; disabled?: boolean; label: string }) {
+  const { armed } = confirm;
   const tap = () => {
-    if (held.current) {
-      held.current = false;
-      return;
-    }
-    if (armed) return confirm();
-    setArmed(true);
-    disarmTimer.current = setTimeout(() => setArmed(false), SWELLING_CONFIRM_WINDOW_MS);
+    if (confirm.consumeHold()) return;
+    confirm.press();
   };
 
   return (
@@ -43,22 +17,16 @@ export function SwellingButton({ onConfirm, disabled, label }: { onConfirm: () =
       type="button"
       disabled={disabled}
       onClick={tap}
-      onPointerDown={() => {
-        held.current = false;
-        holdTimer.current = setTimeout(() => {
-          held.current = true;
-          confirm();
-        }, SWELLING_HOLD_MS);
-      }}
-      onPointerUp={() => holdTimer.current && clearTimeout(holdTimer.current)}
-      onPointerLeave={() => holdTimer.current && clearTimeout(holdTimer.current)}
+      onPointerDown={confirm.holdStart}
+      onPointerUp={confirm.holdEnd}
+      onPointerLeave={confirm.holdEnd}
       aria-describedby="swelling-hint"
       className={`flex min-h-[88px] w-full items-center justify-center gap-3 rounded-2xl border-4 px-6 text-2xl font-bold transition-colors disabled:opacity-40 ${
         armed ? 'border-amber-300 bg-amber-300 text-slate-950' : 'border-amber-300 bg-slate-900 text-amber-200'
       }`}
     >
       <Waves aria-hidden className="h-9 w-9" />
-      {armed ? 'Tap again to confirm' : label}
+      {armed ? 'Tap again, or press S, to confirm' : label}
       <span id="swelling-hint" className="sr-only">
         Tap twice or hold to confirm.
       </span>

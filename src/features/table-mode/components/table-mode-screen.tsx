@@ -6,6 +6,7 @@ import { currentStep, nextStep, remainingMs as remainingOf } from '../../../../m
 import { stepKindInfo } from '../../../../shared/plan/step-kinds';
 import type { RunDetailView } from '../../../../shared/runs/responses';
 import { redFlags } from '../../../../shared/runs/screening';
+import { redFlagStopAdvice, stopElevateReferAdvice } from '../../../../shared/runs/stop-advice';
 import { createCuePlayer, type CuePlayer } from '../lib/audio';
 import { cuesBetween, observeRun, type RunObservation } from '../lib/cue-schedule';
 import { createOutboxSender, type OutboxSender } from '../lib/outbox-sender';
@@ -17,6 +18,7 @@ import { useRunActor, type RunActor } from '../hooks/use-run-actor';
 import { CountdownRing } from './countdown-ring';
 import { ReasonSheet } from './reason-sheet';
 import { SwellingButton } from './swelling-button';
+import { useSwellingConfirm } from '../hooks/use-swelling-confirm';
 
 const phaseWord = { acute: 'Acute', proliferative: 'Proliferative', remodelling: 'Remodelling' } as const;
 
@@ -100,7 +102,6 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
   const [muted, setMuted] = useState(false);
   const [volume, setVolume] = useState(90);
   const [speech, setSpeech] = useState(true);
-  const [keyArmed, setKeyArmed] = useState(false);
   const running = status === 'active' && !isReady;
   // The machine decides what is allowed now (no pausing a cold pack, no skipping back to cold).
   const can = (type: 'PAUSE' | 'RESUME' | 'EXTEND') => snapshot.can({ type, at: now });
@@ -110,6 +111,9 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
 
   const send = useCallback((event: Parameters<RunActor['send']>[0]) => actor.send(event), [actor]);
   const at = () => Date.now();
+  // One double-press rule for the S key and the on-screen control (decision record 0101).
+  const swelling = useSwellingConfirm(() => send({ type: 'SWELLING_INCREASED', at: Date.now() }));
+  const pressSwelling = swelling.press;
 
   // A tablet that slept or a hidden tab: look at the clock again at once.
   useEffect(() => {
@@ -120,7 +124,6 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
 
   // Keyboard and foot pedal: Space pauses/resumes, Enter or → confirms, S twice sends back to cold.
   useEffect(() => {
-    let disarm: ReturnType<typeof setTimeout> | undefined;
     const onKey = (event: KeyboardEvent) => {
       if (sheet || event.target instanceof HTMLInputElement) return;
       if (event.key === ' ') {
@@ -132,21 +135,12 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
           send({ type: 'NEXT', at: at() });
         }
       } else if (event.key === 's' || event.key === 'S') {
-        if (keyArmed) {
-          setKeyArmed(false);
-          send({ type: 'SWELLING_INCREASED', at: at() });
-        } else {
-          setKeyArmed(true);
-          disarm = setTimeout(() => setKeyArmed(false), 3000);
-        }
+        pressSwelling();
       }
     };
     window.addEventListener('keydown', onKey);
-    return () => {
-      window.removeEventListener('keydown', onKey);
-      if (disarm) clearTimeout(disarm);
-    };
-  }, [send, isPaused, awaitingConfirm, keyArmed, sheet]);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [send, isPaused, awaitingConfirm, pressSwelling, sheet]);
 
   if (isReady) {
     return (
@@ -180,7 +174,7 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
         <ended.Icon aria-hidden className={`h-24 w-24 ${ended.tone}`} />
         <h2 className={`text-5xl font-bold ${ended.tone}`}>{ended.title}</h2>
         {outcome === 'stopped-referred' || outcome === 'stop-elevate-refer' ? (
-          <p className="max-w-2xl text-2xl text-slate-200">Do not continue treatment. Elevate the limb and refer the athlete to a physician now.</p>
+          <p className="max-w-2xl text-2xl text-slate-200">{outcome === 'stopped-referred' ? redFlagStopAdvice : stopElevateReferAdvice}</p>
         ) : null}
         <Link to={`/runs/${detail.run.id}/summary`} className="flex min-h-table-target items-center rounded-2xl bg-paper px-8 text-2xl font-semibold text-slate-950">
           See the summary
@@ -241,8 +235,8 @@ function RunInProgress({ actor, detail, player, sender }: { actor: RunActor; det
       <div className="mt-4 grid gap-3 md:grid-cols-[2fr_3fr]">
         <SwellingButton
           disabled={!running}
-          onConfirm={() => send({ type: 'SWELLING_INCREASED', at: at() })}
-          label={keyArmed ? 'Press S again to confirm' : 'Swelling has increased'}
+          confirm={swelling}
+          label="Swelling has increased"
         />
         <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
           <button type="button" onClick={() => send({ type: isPaused ? 'RESUME' : 'PAUSE', at: at() })} disabled={!can(isPaused ? 'RESUME' : 'PAUSE')} className="flex min-h-table-target flex-col items-center justify-center rounded-2xl bg-slate-800 text-lg font-semibold text-paper disabled:opacity-40">
