@@ -77,7 +77,9 @@ export const clinicSettingsSchema = z.object({
     .number({ error: 'Swelling threshold must be between 0.1 and 5 cm' })
     .min(0.1, 'Swelling threshold must be between 0.1 and 5 cm')
     .max(5, 'Swelling threshold must be between 0.1 and 5 cm')
-    .describe('Increase in girth of the injured side, cm, above which swelling counts as increased')
+    .describe(
+      'Growth of the side-to-side girth difference (injured minus other side) between the last two readings at one site, cm, above which swelling counts as increased',
+    )
     .default(1.0),
   minColdIntervalMinutes: z
     .number({ error: 'Minimum interval between cold applications must be a whole number between 1 and 60 minutes' })
@@ -128,7 +130,7 @@ export const clinicSettingLabels: Record<keyof ClinicSettings, string> = {
   timeZone: 'Time zone',
   wakingHours: 'Waking hours for cold schedules',
   coldProtocol: 'Cold protocol',
-  swellingThresholdCm: '"Swelling has increased" girth threshold',
+  swellingThresholdCm: '"Swelling has increased" threshold: growth of the side-to-side girth difference (cm)',
   minColdIntervalMinutes: 'Minimum interval between cold applications',
   abandonAfterHours: 'Abandon an untouched run after',
   recheckIntervalHours: 'Next re-check after a run, by phase',

@@ -72,3 +72,17 @@ describe('clinic settings', () => {
     expect(issuesOf(settingsBodySchema.safeParse({ clinicName: 'X' }))[0].path).toBe('clinicName');
   });
 });
+
+describe('the settings wording says what the code computes', () => {
+  it('the swelling threshold is the growth of the side-to-side girth difference', async () => {
+    const { clinicSettingLabels, clinicSettingsSchema } = await import('../../../shared/clinic/settings');
+    expect(clinicSettingLabels.swellingThresholdCm).toMatch(/side-to-side girth difference/);
+    expect(clinicSettingsSchema.shape.swellingThresholdCm.unwrap().description).toMatch(/side-to-side girth difference/);
+  });
+
+  it('"never more than 20 minutes of continuous cold" holds: every cold kind stays within 1200 s (common practice)', async () => {
+    const { stepKinds, stepKindInfo } = await import('../../../shared/plan/step-kinds');
+    const { maxStepSeconds } = await import('../../../shared/plan/treatment-rules');
+    for (const kind of stepKinds.filter((k) => stepKindInfo[k].cold)) expect(maxStepSeconds(kind)).toBeLessThanOrEqual(1200);
+  });
+});
