@@ -36,7 +36,7 @@ describe('"swelling has increased" needs a second press within one window', () =
     const onConfirm = vi.fn();
     render(<Harness onConfirm={onConfirm} />);
     fireEvent.keyDown(window, { key: 's' });
-    expect(screen.getByRole('button')).toHaveTextContent('Tap again, or press S, to confirm');
+    expect(screen.getByRole('button')).toHaveTextContent('Tap again to confirm');
     act(() => vi.advanceTimersByTime(SWELLING_CONFIRM_WINDOW_MS));
     expect(screen.getByRole('button')).toHaveTextContent('Swelling has increased');
     fireEvent.keyDown(window, { key: 's' });

@@ -26,7 +26,7 @@ export function SwellingButton({ confirm, disabled, label }: { confirm: Swelling
       }`}
     >
       <Waves aria-hidden className="h-9 w-9" />
-      {armed ? 'Tap again, or press S, to confirm' : label}
+      {armed ? 'Tap again to confirm' : label}
       <span id="swelling-hint" className="sr-only">
         Tap twice or hold to confirm.
       </span>
