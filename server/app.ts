@@ -10,11 +10,14 @@ import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { doubleCsrf } from 'csrf-csrf';
 import { pinoHttp } from 'pino-http';
+import { pino } from 'pino';
 import pg from 'pg';
 import type { Config } from './config';
 import { connectDatabase } from './db/connection';
+import { keepPoolAlive } from './db/availability';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { requireSignIn } from './middleware/auth';
+import { refuseUnsafeText } from './middleware/validate';
 import { authRoutes } from './routes/auth';
 import { staffRoutes } from './routes/staff';
 import { athleteRoutes } from './routes/athletes';
@@ -41,9 +44,12 @@ export type AppHandle = { app: Express; pool: pg.Pool; mail: MailRuntime };
 /** The middleware pipeline, top to bottom. Tests build it in-process against the real PostgreSQL. */
 export function createApp(config: Config, options: { clientDist?: string } = {}): AppHandle {
   connectDatabase(config.databaseUrl);
+  // One logger for the process: request lines, mail and database warnings all go through it.
+  const logger = pino({ level: config.logLevel });
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
+  keepPoolAlive(pool, logger);
   // E-mail (the outbox worker, and outside production a local SMTP server) and file storage live in this process.
-  const mail = startMail(config);
+  const mail = startMail(config, logger);
   const storage = createStorage(config.storage);
 
   const app = express();
@@ -52,7 +58,7 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
 
   app.use(
     pinoHttp({
-      level: config.logLevel,
+      logger,
       genReqId: (req, res) => {
         const id = randomUUID();
         res.setHeader('X-Request-Id', id);
@@ -92,6 +98,7 @@ export function createApp(config: Config, options: { clientDist?: string } = {})
   app.use(healthRoutes(pool));
 
   app.use(express.json({ limit: '200kb' }));
+  app.use(refuseUnsafeText);
   app.use(cookieParser());
 
   const PgStore = connectPgSimple(session);

@@ -1,5 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { UniqueConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
+import { databaseRetryAfterSeconds, isDatabaseUnavailable } from '../db/availability';
 import { AppError } from '../errors';
 
 /** Field paths as the client's forms name them ("steps.2.seconds"), each with its first message. */
@@ -32,6 +34,18 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (err instanceof AppError) {
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}), ...err.extra } });
+    return;
+  }
+  // PostgreSQL away (restarting, failing over): the request is fine, so ask the client to retry shortly.
+  if (isDatabaseUnavailable(err)) {
+    req.log?.warn({ err }, 'database unavailable');
+    res.setHeader('Retry-After', String(databaseRetryAfterSeconds));
+    res.status(503).json({ error: { code: 'unavailable', message: 'Mendstep cannot reach its database just now. Nothing was lost; try again in a few seconds.' } });
+    return;
+  }
+  // Two requests saving the same thing at once: the unique index lets one through, and the other is told so.
+  if (err instanceof UniqueConstraintError || err?.parent?.code === '23505' || err?.code === '23505') {
+    res.status(409).json({ error: { code: 'conflict', message: 'Someone else saved this at the same moment. Reload to see their change, then try again.' } });
     return;
   }
   // Errors raised by body-parser, multer and csrf-csrf carry an HTTP status of their own.

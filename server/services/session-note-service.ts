@@ -182,6 +182,10 @@ export async function signOffNote(actor: SessionUser, runId: string, comment: st
     if (existing.status !== 'submitted') {
       throw AppError.conflict('This note is still a draft: the therapist must submit it before it can be signed off.', 'note_not_submitted');
     }
+    // A signature is a second pair of eyes: whoever ran the treatment or wrote the note cannot also sign it.
+    if ([run.therapistId, existing.createdBy, existing.submittedBy].includes(actor.id)) {
+      throw AppError.forbidden('You ran this treatment or wrote this note: another supervisor must sign it off.');
+    }
     const text = comment?.trim() ? comment.trim() : null;
     await existing.update(
       { status: 'signed', signedBy: actor.id, signedAt: new Date(), signOffComment: text, updatedBy: actor.id, version: existing.version + 1 },

@@ -5,6 +5,7 @@ import { AppError } from '../errors';
 import { User } from '../models';
 import { recordAudit } from './audit-service';
 import { getStaffMember } from './staff-service';
+import { retireLinks } from './password-reset-service';
 
 /**
  * An admin changes a member's role or deactivates or reactivates them. The clinic's last active admin can be
@@ -37,6 +38,13 @@ export async function updateStaffMember(actor: SessionUser, id: string, input: S
     // account nobody can sign in to.
     if (!member.active && nextActive && member.passwordHash === null) {
       throw AppError.conflict(`${member.name} has not accepted the invitation yet: resend it instead.`, 'invitation_pending');
+    }
+
+    // Deactivating someone who has not accepted yet withdraws the invitation: their e-mailed link stops working.
+    const withdrawsInvitation = input.active === false && member.passwordHash === null;
+    if (withdrawsInvitation) {
+      await retireLinks(member.id, ['invitation', 'password-reset'], transaction);
+      await recordAudit(actor, 'staff.invitation-withdrawn', { type: 'user', id: member.id }, { name: member.name }, transaction);
     }
 
     const previous = { role: member.role, active: member.active };

@@ -1,5 +1,6 @@
 import { DateTime } from 'luxon';
 import { z } from 'zod';
+import { isSensibleInstant } from '../text-safety';
 
 /**
  * The audit viewer's query string, parsed alike by the server and (for links and the CSV address) the client.
@@ -14,7 +15,8 @@ const day = (label: string) =>
     .string({ error: `${label} must be a date (YYYY-MM-DD)` })
     .trim()
     .regex(/^\d{4}-\d{2}-\d{2}$/, `${label} must be a date (YYYY-MM-DD)`)
-    .refine((value) => DateTime.fromISO(value, { zone: 'utc' }).isValid, { error: `${label} must be a real calendar date` });
+    .refine((value) => DateTime.fromISO(value, { zone: 'utc' }).isValid, { error: `${label} must be a real calendar date` })
+    .refine((value) => isSensibleInstant(Date.parse(`${value}T12:00:00Z`)), { error: `${label} must be between the years 1900 and 2199` });
 
 const auditFilterFields = {
   userId: z.guid({ error: 'Person must be a staff id (UUID)' }).optional().describe('Only what this member of staff did'),

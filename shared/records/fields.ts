@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { instantYearsMessage, isSafeText, isSensibleInstant, unsafeTextMessage } from '../text-safety';
 
 /**
  * Field builders shared by the record schemas, so every range error reads the same way and names its range
@@ -31,14 +32,20 @@ export function rangedNumber(options: RangeOptions) {
 export function boundedText(label: string, max: number, min = 0) {
   const message =
     min > 0 ? `${label} must be between ${min} and ${max} characters` : `${label} must be at most ${max} characters`;
-  const base = z.string({ error: `${label} must be text` }).trim().max(max, message);
+  const base = safeText(label).trim().max(max, message);
   return min > 0 ? base.min(min, message) : base;
 }
 
-/** An ISO 8601 date-time with an offset (a real instant, never a zone-less local time). */
+/** Any text input: refuses NUL and lone surrogates (see shared/text-safety.ts) with the field's own label. */
+export function safeText(label: string) {
+  return z.string({ error: `${label} must be text` }).refine(isSafeText, { error: `${label} ${unsafeTextMessage}` });
+}
+
+/** An ISO 8601 date-time with an offset (a real instant, never a zone-less local time), in sensible years. */
 export function isoInstant(label: string) {
   return z.iso
     .datetime({ offset: true, error: `${label} must be an ISO 8601 date-time with a time zone, e.g. 2025-03-30T14:05:00Z` })
+    .refine((value) => isSensibleInstant(Date.parse(value)), { error: `${label} ${instantYearsMessage}` })
     .describe(`${label}, ISO 8601 with offset`);
 }
 

@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon';
 import { z } from 'zod';
 import { phaseSchema } from '../phase';
+import { isSensibleInstant } from '../text-safety';
 
 /**
  * The review desk's query strings, parsed the same way by the server and (for building links) the client.
@@ -31,6 +32,10 @@ function dayOrInstant(label: string) {
     .trim()
     .refine((value) => (isoDatePattern.test(value) ? DateTime.fromISO(value, { zone: 'utc' }).isValid : z.iso.datetime({ offset: true }).safeParse(value).success), {
       error: message,
+    })
+    // Year 0000 parses as a date but PostgreSQL refuses it: only sensible years reach a query.
+    .refine((value) => isSensibleInstant(Date.parse(isoDatePattern.test(value) ? `${value}T12:00:00Z` : value)), {
+      error: `${label} must be between the years 1900 and 2199`,
     });
 }
 

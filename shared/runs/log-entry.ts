@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { stepKindSchema } from '../plan/step-kinds';
-import { isoInstant } from '../records/fields';
+import { isoInstant, safeText } from '../records/fields';
 
 /** One line of a run's log, as table mode sends it and the review desk reads it. */
 
@@ -37,8 +37,8 @@ export const logEntrySchema = z
     plannedSeconds: z.number().int().nonnegative().max(24 * 3600).optional(),
     actualSeconds: z.number().int().nonnegative().max(24 * 3600).optional(),
     at: isoInstant('Entry time'),
-    reason: z.string().trim().min(1, 'Reason cannot be empty').max(500, 'Reason must be at most 500 characters').optional(),
-    detail: z.string().max(500, 'Detail must be at most 500 characters').optional(),
+    reason: safeText('Reason').trim().min(1, 'Reason cannot be empty').max(500, 'Reason must be at most 500 characters').optional(),
+    detail: safeText('Detail').max(500, 'Detail must be at most 500 characters').optional(),
   })
   .superRefine((entry, ctx) => {
     if (stepTypes.includes(entry.type) && entry.kind === undefined) {
