@@ -13,7 +13,7 @@ import { Athlete, Clinic, Injury, Measurement, Run, RunLogEntry } from '../model
 import { queueRunAlerts } from './alert-service';
 import { recordAudit } from './audit-service';
 import { getClinicSettings } from './clinic-settings-service';
-import { enqueueMail, runInBackground } from './mail-outbox-service';
+import { enqueueMail } from './mail-outbox-service';
 import { issueOptOutLink } from './opt-out-service';
 
 /** What the messages about one finished run need, loaded once. */
@@ -125,46 +125,45 @@ export async function queueHomeCare(context: RunMailContext, transaction: Transa
   return null;
 }
 
-async function loadContext(clinicId: string, runId: string): Promise<RunMailContext | null> {
-  const run = await Run.findOne({ where: { id: runId, clinicId } });
+async function loadContext(clinicId: string, runId: string, transaction?: Transaction): Promise<RunMailContext | null> {
+  const run = await Run.findOne({ where: { id: runId, clinicId }, transaction });
   if (!run) return null;
   const [athlete, injury, clinic, settings] = await Promise.all([
-    Athlete.findByPk(run.athleteId),
-    Injury.findByPk(run.injuryId),
-    Clinic.findByPk(run.clinicId),
+    Athlete.findByPk(run.athleteId, { transaction }),
+    Injury.findByPk(run.injuryId, { transaction }),
+    Clinic.findByPk(run.clinicId, { transaction }),
     getClinicSettings(run.clinicId),
   ]);
   if (!athlete || !injury || !clinic) return null;
   return { run, athlete, injury, injuryLabel: injuryLabelOf(injury), clinicName: clinic.name, settings };
 }
 
-/** Queues the messages a finished run calls for, in one transaction; the dedupe keys make a second call harmless. */
-export async function queueRunFinishedMail(actor: SessionUser, runId: string): Promise<{ homeCare: string | null; alerts: number }> {
-  const context = await loadContext(actor.clinicId, runId);
-  if (!context) return { homeCare: 'run not found', alerts: 0 };
-  return Run.sequelize!.transaction(async (transaction) => {
-    const homeCare = await queueHomeCare(context, transaction);
-    const alerts = await queueRunAlerts(context, transaction);
-    const ran = context.run.status === 'completed' || context.run.status === 'fell-back';
-    if (ran) {
-      await recordAudit(
-        actor,
-        homeCare ? 'email.home-care-not-sent' : 'email.home-care-queued',
-        { type: 'run', id: runId },
-        homeCare ? { reason: homeCare } : {},
-        transaction,
-      );
-    }
-    if (alerts) await recordAudit(actor, 'email.run-alert-queued', { type: 'run', id: runId }, { supervisors: alerts }, transaction);
-    return { homeCare, alerts };
-  });
-}
-
 /**
- * The run service's hook, called after the transaction that finished a run commits. The run's own request
- * never waits for (or fails because of) e-mail; the outbox takes it from here.
+ * Queues the messages a finished run calls for, inside the caller's transaction: the home-care e-mail and the
+ * supervisor alert are committed with the entry that finished the run, or not at all — a crash after the 201
+ * can no longer lose them, and a retry (a replay) needs to queue nothing. The dedupe keys make a second call
+ * harmless.
  */
-export function notifyRunFinished(actor: SessionUser, run: Pick<Run, 'id' | 'status'>): void {
-  if (!['completed', 'fell-back', 'stopped-referred'].includes(run.status)) return;
-  runInBackground(`queueing e-mail for run ${run.id}`, () => queueRunFinishedMail(actor, run.id));
+export async function queueRunFinishedMail(
+  actor: SessionUser,
+  run: Pick<Run, 'id' | 'status'>,
+  transaction: Transaction,
+): Promise<{ homeCare: string | null; alerts: number }> {
+  if (!['completed', 'fell-back', 'stopped-referred'].includes(run.status)) return { homeCare: null, alerts: 0 };
+  const context = await loadContext(actor.clinicId, run.id, transaction);
+  if (!context) return { homeCare: 'run not found', alerts: 0 };
+  const homeCare = await queueHomeCare(context, transaction);
+  const alerts = await queueRunAlerts(context, transaction);
+  const ran = context.run.status === 'completed' || context.run.status === 'fell-back';
+  if (ran) {
+    await recordAudit(
+      actor,
+      homeCare ? 'email.home-care-not-sent' : 'email.home-care-queued',
+      { type: 'run', id: run.id },
+      homeCare ? { reason: homeCare } : {},
+      transaction,
+    );
+  }
+  if (alerts) await recordAudit(actor, 'email.run-alert-queued', { type: 'run', id: run.id }, { supervisors: alerts }, transaction);
+  return { homeCare, alerts };
 }

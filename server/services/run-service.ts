@@ -13,7 +13,7 @@ import { recordAudit } from './audit-service';
 import { getClinicSettings } from './clinic-settings-service';
 import { findInjury, getInjuryView } from './injury-service';
 import { currentSequence } from './sequence-service';
-import { notifyRunFinished } from './home-care-service';
+import { queueRunFinishedMail } from './home-care-service';
 import { assertGuardianConsent } from './guardian-consent-service';
 import { suggestRecheckAfterRun } from './recheck-service';
 
@@ -145,10 +145,10 @@ export async function createRun(actor: SessionUser, input: { injuryId: string; s
       );
       await recordAudit(actor, 'run.created', { type: 'run', id: created.id }, { injuryId: injury.id, status: created.status }, transaction);
       await suggestRecheckAfterRun(actor, created, transaction);
+      // A red-flag screening records a finished run: the supervisor's alert is committed with it.
+      await queueRunFinishedMail(actor, created, transaction);
       return created;
     });
-    // A red-flag screening records a finished run: the supervisor hears of it (fire-and-forget, after commit).
-    notifyRunFinished(actor, run);
     return toRunView(run);
   } catch (error) {
     if (error instanceof UniqueConstraintError) throw AppError.conflict('A run is already in progress for this injury.', 'run_active');
@@ -165,8 +165,8 @@ export async function completeScreening(actor: SessionUser, runId: string, scree
     await run.update({ plan, phase, sequenceId, sequenceVersion, screening, lastActivityAt: new Date(), ...screeningFields(screening) }, { transaction });
     await recordAudit(actor, 'run.screened', { type: 'run', id: run.id }, { status: run.status }, transaction);
     await suggestRecheckAfterRun(actor, run, transaction);
+    await queueRunFinishedMail(actor, run, transaction);
   });
-  notifyRunFinished(actor, run);
   return toRunView(run);
 }
 
@@ -224,7 +224,6 @@ export async function appendLogEntry(actor: SessionUser, runId: string, key: str
     return { created: false, entry: toEntryView(existing) };
   };
 
-  let finished: Run | null = null;
   try {
     const result = await Run.sequelize!.transaction(async (transaction) => {
       // The row lock serialises entries of one run, so status changes follow the log's order.
@@ -257,13 +256,11 @@ export async function appendLogEntry(actor: SessionUser, runId: string, key: str
       await run.update({ ...changes, lastActivityAt: new Date() }, { transaction });
       if (changes.status && changes.status !== 'running') {
         await recordAudit(actor, `run.${changes.status}`, { type: 'run', id: runId }, { entryType: entry.type }, transaction);
-        finished = run;
         await suggestRecheckAfterRun(actor, run, transaction);
+        await queueRunFinishedMail(actor, run, transaction);
       }
       return { created: true, entry: toEntryView(stored) };
     });
-    // Only after the commit: home care and supervisor alerts are queued for a run that really finished.
-    if (finished) notifyRunFinished(actor, finished);
     return result;
   } catch (error) {
     // Two copies of one entry raced: the other one won, so this is a replay.

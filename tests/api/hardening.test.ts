@@ -3,6 +3,8 @@ import request from 'supertest';
 import pg from 'pg';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
+import { OutboundEmail } from '../../server/models';
+import { Op } from 'sequelize';
 import { loadConfig } from '../../server/config';
 import { isDatabaseUnavailable } from '../../server/db/availability';
 import { findUnsafeText, isSafeText } from '../../shared/text-safety';
@@ -114,6 +116,20 @@ describe('saves that race', () => {
     for (const refused of results.filter((r) => r.status === 409)) expect(refused.body.error.code).toBe('conflict');
     const after = (await supervisor.get('/api/sequences')).body.items.find((s: { phase: string }) => s.phase === 'remodelling');
     expect(after.version).toBe(current.version + statuses.filter((s) => s === 200).length);
+  });
+});
+
+describe("a finished run's e-mails are written with the entry that finished it", () => {
+  it('when the fall-back entry gets its 201, the home-care e-mail and every supervisor alert are already in the outbox', async () => {
+    const athlete = (await therapist.post('/api/athletes').send({ name: 'Kai Moreno', yearOfBirth: 1997, sport: 'Football', consentToTreatment: true, email: `kai-${randomUUID()}@example.test` })).body.athlete;
+    const injury = (await therapist.post('/api/injuries').send({ athleteId: athlete.id, region: 'anterior-thigh', side: 'right', mechanismKind: 'knee-to-thigh', injuredAt: hoursAgo(20) })).body.injury;
+    const run = (await therapist.post('/api/runs').send({ injuryId: injury.id, screening: clear })).body.run;
+    const at = new Date().toISOString();
+    const res = await therapist.post(`/api/runs/${run.id}/log`).set('Idempotency-Key', randomUUID()).send({ seq: 1, type: 'run-fell-back', at });
+    expect(res.status).toBe(201);
+    // No waiting for background work: what a crash right after the 201 would leave behind is what is committed.
+    const queued = await OutboundEmail.findAll({ where: { dedupeKey: { [Op.like]: `%${run.id}%` } } });
+    expect(queued.map((m) => m.kind).sort()).toEqual(['home-care', 'run-alert', 'run-alert']);
   });
 });
 
