@@ -145,3 +145,34 @@ describe('table mode in Chromium at 1280×800', () => {
     await context.close();
   });
 });
+
+describe('the server decides what a run is', () => {
+  it('a run that ended on the server opens as finished, even on the tablet that still holds it mid-step, and cannot be run again', async () => {
+    const { context, page } = await therapistPage();
+    const name = `Ilse Ward ${Date.now().toString(36)}`;
+    const injuryId = await newInjury(page, name, 10);
+    const runId = await openTableMode(page, injuryId);
+    await expect.poll(() => page.getByRole('button', { name: /Pause/ }).count()).toBeGreaterThan(0);
+
+    // Ended elsewhere (another tablet, or the office): the server's record says so; this tablet's snapshot does not know.
+    const status = await page.evaluate(async (id) => {
+      const token = (await (await fetch('/api/auth/csrf')).json()).token;
+      const res = await fetch(`/api/runs/${id}/log`, {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': token, 'Idempotency-Key': crypto.randomUUID() },
+        body: JSON.stringify({ seq: 90, type: 'run-ended-early', reason: 'Athlete called away', at: new Date().toISOString() }),
+      });
+      return res.status;
+    }, runId);
+    expect(status).toBe(201);
+
+    await page.reload();
+    await page.getByTestId('finished-run').waitFor();
+    expect(await page.getByRole('heading', { name: 'This run was ended early' }).count()).toBe(1);
+    for (const control of [/^Begin$/, /Pause/, /Skip/, /Swelling has increased/]) {
+      expect(await page.getByRole('button', { name: control }).count()).toBe(0);
+    }
+    await screenshot(page, 'table-mode-finished-run');
+    await context.close();
+  });
+});

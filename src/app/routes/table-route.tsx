@@ -2,6 +2,8 @@ import { useNavigate, useParams } from 'react-router-dom';
 import { RequireAuth } from '../../features/auth/components/require-auth';
 import { useRun } from '../../features/runs/api/run-queries';
 import { TableModeScreen } from '../../features/table-mode/components/table-mode-screen';
+import { FinishedRun } from '../../features/table-mode/components/finished-run';
+import { finishedStatuses } from '../../../shared/runs/responses';
 
 function TableMode({ runId }: { runId: string }) {
   const run = useRun(runId);
@@ -12,6 +14,8 @@ function TableMode({ runId }: { runId: string }) {
     navigate(`/runs/${runId}/screening`, { replace: true });
     return null;
   }
+  // The server decides what a run is: a finished one shows how it ended, never a live step.
+  if (finishedStatuses.includes(run.data.run.status)) return <FinishedRun detail={run.data} />;
   return <TableModeScreen detail={run.data} onSessionExpired={() => navigate(`/sign-in?next=${encodeURIComponent(`/table/${runId}`)}`)} />;
 }
 

@@ -5,6 +5,7 @@ import { treatmentRunMachine, wallClock } from '../../../../machines/treatment-r
 import type { RunLogEntryView, RunView } from '../../../../shared/runs/responses';
 import type { LogEntry } from '../../../../shared/runs/log-entry';
 import { createOutboxItem, loadSnapshot, saveTransition, type OutboxItem } from '../lib/outbox';
+import { chooseStartingPoint } from '../lib/starting-point';
 
 export type RunActor = Actor<typeof treatmentRunMachine>;
 
@@ -33,8 +34,10 @@ export function useRunActor(run: RunView, serverEntries: RunLogEntryView[], onSa
 
     (async () => {
       const stored = await loadSnapshot<ReturnType<RunActor['getPersistedSnapshot']>>(run.id).catch(() => undefined);
-      const snapshot = stored ?? (serverEntries.length ? rebuildRunSnapshot(run.plan, serverEntries.map(entryFromServer)) : undefined);
-      if (disposed) return;
+      const start = chooseStartingPoint(run, stored as (typeof stored & { context?: { logSeq?: number } }) | undefined, serverEntries);
+      if (disposed || start.kind === 'finished') return;
+      const snapshot =
+        start.kind === 'restore' ? start.snapshot : start.kind === 'rebuild' ? rebuildRunSnapshot(run.plan, serverEntries.map(entryFromServer)) : undefined;
       created = snapshot
         ? createActor(treatmentRunMachine, { snapshot, input: { plan: run.plan }, clock: wallClock })
         : createActor(treatmentRunMachine, { input: { plan: run.plan, now: Date.now() }, clock: wallClock });
