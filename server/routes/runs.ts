@@ -6,7 +6,7 @@ import { screeningSchema } from '../../shared/runs/screening';
 import { AppError } from '../errors';
 import { currentUser, requireRole } from '../middleware/auth';
 import { parseInput } from '../middleware/validate';
-import { appendLogEntry, completeScreening, createRun, getRunDetail, listRunsForInjury } from '../services/run-service';
+import { appendLogEntry, completeScreening, createRun, getRunDetail, listRunsForInjury, listRunsInProgress } from '../services/run-service';
 
 const createRunSchema = z.object({
   injuryId: z.guid({ error: 'Injury id must be a UUID' }),
@@ -14,6 +14,7 @@ const createRunSchema = z.object({
 });
 const screeningBodySchema = z.object({ screening: screeningSchema });
 const listQuerySchema = z.object({ injuryId: z.guid({ error: 'Injury id must be a UUID' }) });
+const inProgressQuerySchema = z.object({ injuryId: z.guid({ error: 'Injury id must be a UUID' }).optional() });
 const idempotencyKeySchema = z.guid({ error: 'Idempotency-Key must be a UUID made when the entry was created' });
 
 export function runRoutes(): Router {
@@ -28,6 +29,11 @@ export function runRoutes(): Router {
   router.get('/', async (req, res) => {
     const { injuryId } = parseInput(listQuerySchema, req.query);
     res.json({ items: await listRunsForInjury(currentUser(req), injuryId) });
+  });
+
+  router.get('/in-progress', async (req, res) => {
+    const { injuryId } = parseInput(inProgressQuerySchema, req.query);
+    res.json({ items: await listRunsInProgress(currentUser(req), injuryId) });
   });
 
   router.get('/:id', async (req, res) => {

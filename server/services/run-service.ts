@@ -4,6 +4,7 @@ import type { SessionUser } from '../../shared/auth/schemas';
 import type { PadSize as ClinicalPadSize } from '../../shared/clinical/pad-size';
 import { buildPlan, type PadSize, type Plan } from '../../shared/plan/build-plan';
 import type { LogEntry, RunOutcome, RunStatus } from '../../shared/runs/log-entry';
+import { runProgress, type RunInProgressView } from '../../shared/runs/run-progress';
 import { activeStatuses, finishedStatuses, type RunDetailView, type RunLogEntryView, type RunView } from '../../shared/runs/responses';
 import { redFlagLabel, screeningOutcome, type Screening } from '../../shared/runs/screening';
 import type { Phase } from '../../shared/phase';
@@ -276,4 +277,40 @@ export async function listRunsForInjury(actor: SessionUser, injuryId: string): P
   await findInjury(actor, injuryId);
   const runs = await Run.findAll({ where: { clinicId: actor.clinicId, injuryId }, order: [['createdAt', 'DESC']], limit: 50 });
   return Promise.all(runs.map(toRunView));
+}
+
+/**
+ * The clinic's runs under way (ready to begin or running), newest first, for Today and the injury page: a run
+ * left in table mode keeps its place on the office screens until it ends. Runs past the abandon cut-off are
+ * left out without writing: the periodic clean-up files them.
+ */
+export async function listRunsInProgress(actor: SessionUser, injuryId?: string): Promise<RunInProgressView[]> {
+  const settings = await getClinicSettings(actor.clinicId);
+  const cutoff = new Date(Date.now() - settings.abandonAfterHours * 3_600_000);
+  const runs = await Run.findAll({
+    where: { clinicId: actor.clinicId, status: { [Op.in]: ['ready', 'running'] }, lastActivityAt: { [Op.gte]: cutoff }, ...(injuryId ? { injuryId } : {}) },
+    order: [['createdAt', 'DESC']],
+    limit: 50,
+  });
+  if (!runs.length) return [];
+  const entries = await RunLogEntry.findAll({
+    where: { clinicId: actor.clinicId, runId: { [Op.in]: runs.map((r) => r.id) }, type: { [Op.in]: ['step-completed', 'step-skipped'] } },
+    attributes: ['runId', 'type', 'stepIndex', 'at'],
+  });
+  return Promise.all(
+    runs.map(async (run) => {
+      const view = await toRunView(run);
+      const progress = runProgress(run.plan, entries.filter((e) => e.runId === run.id), run.startedAt);
+      return {
+        runId: run.id,
+        injuryId: run.injuryId,
+        athleteName: view.athleteName,
+        injuryLabel: view.injuryLabel,
+        therapistName: view.therapistName,
+        status: run.status,
+        ...progress,
+        lastActivityAt: run.lastActivityAt.toISOString(),
+      };
+    }),
+  );
 }

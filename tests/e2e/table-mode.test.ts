@@ -154,6 +154,15 @@ describe('the server decides what a run is', () => {
     const runId = await openTableMode(page, injuryId);
     await expect.poll(() => page.getByRole('button', { name: /Pause/ }).count()).toBeGreaterThan(0);
 
+    // Left mid-run: the run stays in sight on the injury page and on Today, with the step it is on and Resume.
+    await page.getByRole('link', { name: 'Leave table mode' }).click();
+    await page.getByTestId('runs-in-progress').waitFor();
+    expect(await page.getByTestId('runs-in-progress').innerText()).toMatch(/In table mode — no step finished yet/);
+    await page.goto(`${env.server.baseUrl}/today`);
+    await page.getByRole('link', { name: `Resume the run for ${name}, Calf, Left` }).click();
+    await page.waitForURL(new RegExp(`/table/${runId}$`));
+    await expect.poll(() => page.getByRole('button', { name: /Pause/ }).count()).toBeGreaterThan(0);
+
     // Ended elsewhere (another tablet, or the office): the server's record says so; this tablet's snapshot does not know.
     const status = await page.evaluate(async (id) => {
       const token = (await (await fetch('/api/auth/csrf')).json()).token;

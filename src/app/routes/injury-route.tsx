@@ -6,6 +6,7 @@ import { InjuryPhotos } from '../../features/uploads/components/injury-photos';
 import { ClosurePanel } from '../../features/closure/components/closure-panel';
 import { RecheckEditor } from '../../features/closure/components/recheck-editor';
 import { EmailOptOutNote } from '../../features/athletes/components/email-status';
+import { RunsInProgress } from '../../features/runs/components/runs-in-progress';
 import { AppShell } from '../layout/app-shell';
 
 export function InjuryRoute() {
@@ -40,6 +41,9 @@ function InjuryOperations({ injuryId }: { injuryId: string }) {
   const { injury, athlete } = detail.data;
   return (
     <div className="grid items-start gap-4 lg:grid-cols-[1fr_2fr]">
+      <div className="lg:col-span-2">
+        <RunsInProgress injuryId={injuryId} />
+      </div>
       {athlete.emailOptedOutAt ? (
         // The home-care plan cannot go by e-mail: the therapist must hand it over in person.
         <p className="rounded-lg bg-ember-50 px-3 py-2 text-sm lg:col-span-2">

@@ -1,5 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { v4 as uuidv4 } from 'uuid';
 import type { RunDetailView, RunView } from '../../../../shared/runs/responses';
+import type { RunInProgressView } from '../../../../shared/runs/run-progress';
 import type { ScreeningInput } from '../../../../shared/runs/screening';
 import { apiRequest } from '../../../lib/api-client';
 
@@ -31,3 +33,20 @@ export function useSubmitScreening(runId: string) {
     onSuccess: () => queryClient.invalidateQueries({ queryKey: runKeys.detail(runId) }),
   });
 }
+
+export const getRunsInProgressQueryOptions = (injuryId?: string) =>
+  queryOptions({
+    queryKey: [...runKeys.all, 'in-progress', { injuryId: injuryId ?? null }] as const,
+    queryFn: () =>
+      apiRequest<{ items: RunInProgressView[] }>(`/api/runs/in-progress${injuryId ? `?injuryId=${encodeURIComponent(injuryId)}` : ''}`).then((r) => r.items),
+    // A run in progress moves on by itself: look again every half minute.
+    refetchInterval: 30_000,
+  });
+
+/** Ends a run from the office (left running on a tablet, or to start afresh), with the reason the log needs. */
+export const endRunEarly = (runId: string, reason: string) =>
+  apiRequest(`/api/runs/${runId}/log`, {
+    method: 'POST',
+    headers: { 'Idempotency-Key': uuidv4() },
+    body: { type: 'run-ended-early', reason, at: new Date().toISOString() },
+  });
