@@ -15,6 +15,7 @@ import { findInjury, getInjuryView } from './injury-service';
 import { currentSequence } from './sequence-service';
 import { notifyRunFinished } from './home-care-service';
 import { assertGuardianConsent } from './guardian-consent-service';
+import { assertTreatmentConsent } from './treatment-consent-service';
 import { suggestRecheckAfterRun } from './recheck-service';
 
 const sideWord = { left: 'left', right: 'right' } as const;
@@ -117,6 +118,7 @@ function screeningFields(screening: Screening | null) {
 export async function createRun(actor: SessionUser, input: { injuryId: string; screening?: Screening }): Promise<RunView> {
   const injury = await findInjury(actor, input.injuryId);
   if (injury.status !== 'open') throw AppError.conflict('This injury is closed; reopen it before starting a run.', 'injury_closed');
+  await assertTreatmentConsent(actor, injury.athleteId);
   await assertGuardianConsent(actor, injury.athleteId);
   await abandonStaleRuns(actor.clinicId);
   const active = await Run.findOne({ where: { injuryId: injury.id, status: { [Op.in]: [...activeStatuses] } } });

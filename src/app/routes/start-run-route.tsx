@@ -1,14 +1,15 @@
 import { useEffect, useRef, useState } from 'react';
-import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import { useNavigate, useSearchParams } from 'react-router-dom';
 import { RequireAuth } from '../../features/auth/components/require-auth';
 import { createRun, getRun } from '../../features/runs/api/run-queries';
+import { RunRefused } from '../../features/runs/components/run-refused';
 import { ApiError } from '../../lib/api-client';
 import { AppShell } from '../layout/app-shell';
 
 /** `/runs/new?injuryId=…`: creates the run (or finds the one in progress) and goes on to screening or table mode. */
-function StartRun({ injuryId }: { injuryId: string }) {
+export function StartRun({ injuryId }: { injuryId: string }) {
   const navigate = useNavigate();
-  const [error, setError] = useState<string | null>(null);
+  const [error, setError] = useState<unknown>(null);
   const started = useRef(false);
 
   useEffect(() => {
@@ -23,20 +24,11 @@ function StartRun({ injuryId }: { injuryId: string }) {
           navigate(run.status === 'screening' ? `/runs/${run.id}/screening` : `/table/${run.id}`, { replace: true });
           return;
         }
-        setError(err instanceof Error ? err.message : 'Could not start the run.');
+        setError(err);
       });
   }, [injuryId, navigate]);
 
-  if (error) {
-    return (
-      <div role="alert" className="flex flex-col gap-3">
-        <p className="text-ember-700">{error}</p>
-        <Link to={`/injuries/${injuryId}`} className="underline">
-          Back to the injury
-        </Link>
-      </div>
-    );
-  }
+  if (error) return <RunRefused error={error} injuryId={injuryId} />;
   return <p className="text-ink-muted">Preparing the run…</p>;
 }
 
