@@ -96,6 +96,7 @@ async function planFor(actor: SessionUser, injury: Injury, screening: Screening 
     sequence: { phase: view.phase, steps: sequence.steps },
     tolerance: screening?.tolerance ?? 'usual',
     padSize: toPlanPad(view.assessment.padSize),
+    padOversize: view.assessment.padSize?.oversize ?? false,
     coldContraindicated: outcome?.coldContraindicated ?? false,
     suspectedMyositis: outcome?.suspectedMyositis ?? false,
     bleedingRisk: outcome?.bleedingRisk ?? false,
