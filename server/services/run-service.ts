@@ -16,6 +16,7 @@ import { findInjury, getInjuryView } from './injury-service';
 import { currentSequence } from './sequence-service';
 import { queueRunFinishedMail } from './home-care-service';
 import { assertGuardianConsent } from './guardian-consent-service';
+import { assertTreatmentConsent } from './treatment-consent-service';
 import { suggestRecheckAfterRun } from './recheck-service';
 
 const sideWord = { left: 'left', right: 'right' } as const;
@@ -96,6 +97,7 @@ async function planFor(actor: SessionUser, injury: Injury, screening: Screening 
     sequence: { phase: view.phase, steps: sequence.steps },
     tolerance: screening?.tolerance ?? 'usual',
     padSize: toPlanPad(view.assessment.padSize),
+    padOversize: view.assessment.padSize?.oversize ?? false,
     coldContraindicated: outcome?.coldContraindicated ?? false,
     suspectedMyositis: outcome?.suspectedMyositis ?? false,
     bleedingRisk: outcome?.bleedingRisk ?? false,
@@ -118,6 +120,7 @@ function screeningFields(screening: Screening | null) {
 export async function createRun(actor: SessionUser, input: { injuryId: string; screening?: Screening }): Promise<RunView> {
   const injury = await findInjury(actor, input.injuryId);
   if (injury.status !== 'open') throw AppError.conflict('This injury is closed; reopen it before starting a run.', 'injury_closed');
+  await assertTreatmentConsent(actor, injury.athleteId);
   await assertGuardianConsent(actor, injury.athleteId);
   await abandonStaleRuns(actor.clinicId);
   const active = await Run.findOne({ where: { injuryId: injury.id, status: { [Op.in]: [...activeStatuses] } } });

@@ -4,18 +4,28 @@ import { DateTime } from 'luxon';
 export const guardianConsentUnderAge = 18;
 
 /**
- * Mendstep stores a year of birth only, so "under 18" is read by year: the age the athlete reaches in the
- * current calendar year (in the clinic's zone) below 18. An athlete who turns 18 later this year therefore
- * counts as 18 from January (docs/decisions/0073-guardian-consent-by-year-of-birth.md); the therapist can
- * record a guardian's consent for anyone when in doubt.
+ * Mendstep stores a year of birth only, so the age on the day is known only to within a year: someone who
+ * reaches 18 this calendar year (in the clinic's zone) may still be 17 today. Such an athlete is treated as
+ * under 18 until December, erring on the safe side (docs/decisions/0103-guardian-consent-errs-safe.md,
+ * which replaces 0073's reading).
  */
 export function ageThisYear(yearOfBirth: number, now: Date, timeZone: string): number {
   return DateTime.fromJSDate(now).setZone(timeZone).year - yearOfBirth;
 }
 
+/** Why a guardian's consent is needed, in words for the screen; null when the athlete is surely 18 or over. */
+export function guardianConsentReason(yearOfBirth: number, now: Date, timeZone: string): string | null {
+  const age = ageThisYear(yearOfBirth, now, timeZone);
+  if (age < guardianConsentUnderAge) return `Born in ${yearOfBirth}, so under 18 all this year (turns ${age} this year).`;
+  if (age === guardianConsentUnderAge) {
+    return `Born in ${yearOfBirth}, so turns 18 this year and may still be 17 today: with only a year of birth on record, a guardian's consent is needed until the new year.`;
+  }
+  return null;
+}
+
 export function needsGuardianConsent(yearOfBirth: number, now: Date, timeZone: string): boolean {
-  return ageThisYear(yearOfBirth, now, timeZone) < guardianConsentUnderAge;
+  return guardianConsentReason(yearOfBirth, now, timeZone) !== null;
 }
 
 export const guardianConsentMissingMessage =
-  "This athlete is under 18: record a parent's or guardian's consent (who gave it, and when) on the athlete's page before starting a run.";
+  "This athlete is or may be under 18: record a parent's or guardian's consent (who gave it, and when) on the athlete's page before starting a run.";

@@ -14,11 +14,21 @@ export interface PadSize {
   length: PadRange;
   width: PadRange;
   note: string;
+  /** The bruise needed more than the largest pad: the ranges are capped and the note says so. */
+  oversize: boolean;
   source: string;
   wrapGuidance: GuidanceLine[];
 }
 
 export const padScale = { min: 2, max: 3 } as const;
+
+/**
+ * The largest felt pad the plan carries, each dimension (ours: the plan's pad table stops here). A bruise too
+ * big for two to three times its size gets this pad with a note, never a plan that fails to build.
+ */
+export const largestPadCm = 100;
+
+export const oversizePadNote = `The bruise is too large for a pad two to three times its size: use the largest pad (${largestPadCm} cm), cover the bruise, and check with a physician about a bruise this size.`;
 
 /*
  * Common practice says a felt pad "two to three times the size of the injury". Mendstep reads size as each
@@ -32,12 +42,16 @@ export function padSize(bruise: {
 }): PadSize | null {
   const { bruiseLengthCm: length, bruiseWidthCm: width } = bruise;
   if (!isPositive(length) || !isPositive(width)) return null;
+  const pad = { length: range(length), width: range(width) };
+  const oversize = pad.length.maxCm > largestPadCm || pad.width.maxCm > largestPadCm;
   return {
-    length: range(length),
-    width: range(width),
+    length: capped(pad.length),
+    width: capped(pad.width),
     note:
       'Felt pad two to three times the size of the bruise, read as each dimension (length and width), rounded to 0.5 cm. ' +
-      'No published pad size for contusions was found.',
+      'No published pad size for contusions was found.' +
+      (oversize ? ` ${oversizePadNote}` : ''),
+    oversize,
     source: sources.commonPractice,
     wrapGuidance: wrapGuidance.map((line) => ({ ...line })),
   };
@@ -68,6 +82,11 @@ function isPositive(value: number | null | undefined): value is number {
 
 function range(dimensionCm: number): PadRange {
   return { minCm: roundToHalf(dimensionCm * padScale.min), maxCm: roundToHalf(dimensionCm * padScale.max) };
+}
+
+/** Each bound within the largest pad, so the range stays a range (min ≤ max). */
+export function capped(range: PadRange): PadRange {
+  return { minCm: Math.min(range.minCm, largestPadCm), maxCm: Math.min(range.maxCm, largestPadCm) };
 }
 
 function roundToHalf(value: number): number {

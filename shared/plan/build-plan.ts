@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { phaseSchema, type Phase } from '../phase';
+import { capped, largestPadCm, oversizePadNote } from '../clinical/pad-size';
 import { maxSequenceSteps, type Sequence } from './sequence';
 import { boundsMessage, isWithinBounds, stepKindInfo, stepKindSchema, type StepKind } from './step-kinds';
 import { coldGapBefore, coldTooSoonMessage, exclusionReason, isCold, stepRuleIssues, type PlanRestrictions } from './treatment-rules';
@@ -28,7 +29,7 @@ const centimetres = (label: string) =>
   z
     .number({ error: `${label} must be a number of centimetres` })
     .positive(`${label} must be more than 0 cm`)
-    .max(100, `${label} must be at most 100 cm`);
+    .max(largestPadCm, `${label} must be at most ${largestPadCm} cm`);
 
 /** The felt pad's size range (two to three times the injury, common practice), computed from the bruise. */
 export const padSizeSchema = z
@@ -100,6 +101,8 @@ export interface BuildPlanArgs {
   sequence: Sequence;
   tolerance: Tolerance;
   padSize?: PadSize | null;
+  /** The pad was capped at the largest size before it got here (the injury's assessment says so). */
+  padOversize?: boolean;
   coldContraindicated: boolean;
   suspectedMyositis: boolean;
   /** Screening ticked anticoagulants or a bleeding disorder: no deep work (massage cautions, common practice). */
@@ -164,9 +167,18 @@ function leftOutText(removed: { kind: StepKind; reason: string }[]): string[] {
   return [...byReason].map(([reason, labels]) => `Left out of this plan: ${labels.join(', ')} (${reason}).`);
 }
 
+/** A pad larger than the table allows becomes the largest pad, flagged so the plan says why. */
+function withinPadTable(pad: PadSize | null): { padSize: PadSize | null; padOversize: boolean } {
+  if (!pad) return { padSize: null, padOversize: false };
+  const length = capped({ minCm: pad.minLengthCm, maxCm: pad.maxLengthCm });
+  const width = capped({ minCm: pad.minWidthCm, maxCm: pad.maxWidthCm });
+  const padOversize = Math.max(pad.maxLengthCm, pad.maxWidthCm) > largestPadCm;
+  return { padSize: { minLengthCm: length.minCm, maxLengthCm: length.maxCm, minWidthCm: width.minCm, maxWidthCm: width.maxCm }, padOversize };
+}
+
 export function buildPlan(args: BuildPlanArgs): Plan {
   const { phase, sequence, tolerance, coldContraindicated, suspectedMyositis } = args;
-  const padSize = args.padSize ?? null;
+  const { padSize, padOversize } = withinPadTable(args.padSize ?? null);
   const minColdIntervalSeconds = args.minColdIntervalSeconds ?? defaultMinColdIntervalSeconds;
   if (sequence.phase !== phase) {
     throw new RangeError(`The sequence is for the ${sequence.phase} phase, not ${phase}`);
@@ -179,6 +191,7 @@ export function buildPlan(args: BuildPlanArgs): Plan {
   ].filter((text) => text !== null);
   const restrictions: PlanRestrictions = { coldContraindicated, deepWorkReasons };
   const cautions: string[] = [...(coldContraindicated ? [cautionTexts.coldContraindicated] : []), ...deepWorkReasons];
+  if (padOversize || args.padOversize) cautions.push(oversizePadNote);
 
   const removed: { kind: StepKind; reason: string }[] = [];
   const kept = sequence.steps

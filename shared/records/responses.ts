@@ -17,8 +17,10 @@ export interface AthleteView {
   consentRecordedByName: string | null;
   /** A parent's or guardian's consent (athletes under 18 need one before a run). Always sent by the API; optional for older fixtures. */
   guardianConsent?: { guardianName: string; recordedAt: string; recordedByName: string | null } | null;
-  /** Under 18 by year of birth, in the clinic's zone. */
+  /** Is or may be under 18 by year of birth, in the clinic's zone (erring safe, docs/decisions/0103). */
   needsGuardianConsent?: boolean;
+  /** Why the guardian's consent is needed (under 18, or may be by year of birth); null when not. Always sent by the API. */
+  guardianConsentReason?: string | null;
   notes: string | null;
   createdAt: string;
   openInjuries?: number;

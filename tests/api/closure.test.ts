@@ -21,7 +21,7 @@ beforeAll(async () => {
 });
 
 async function thighInjury(region = 'anterior-thigh') {
-  const athlete = (await therapist.post('/api/athletes').send({ name: 'Ilse Marr', yearOfBirth: 1996, sport: 'Football' })).body.athlete;
+  const athlete = (await therapist.post('/api/athletes').send({ consentToTreatment: true, name: 'Ilse Marr', yearOfBirth: 1996, sport: 'Football' })).body.athlete;
   const injury = (
     await therapist.post('/api/injuries').send({ athleteId: athlete.id, region, side: 'right', mechanismKind: 'knee-to-thigh', injuredAt: hoursAgo(30 * 24) })
   ).body.injury;

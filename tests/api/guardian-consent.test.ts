@@ -48,9 +48,19 @@ describe("a guardian's consent for athletes under 18", () => {
     expect((await therapist.post('/api/runs').send({ injuryId: injury.id })).status).toBe(409);
   });
 
-  it('needs no guardian for an athlete who reaches 18 this year', async () => {
+  it('asks for a guardian for an athlete who reaches 18 this year, who may still be 17 today, and says why', async () => {
     const { athlete, injury } = await athleteWithInjury(thisYear - 18);
+    expect(athlete.needsGuardianConsent).toBe(true);
+    expect(athlete.guardianConsentReason).toMatch(/may still be 17 today/);
+    const refused = await therapist.post('/api/runs').send({ injuryId: injury.id, screening: clear });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('guardian_consent_required');
+  });
+
+  it('needs no guardian for an athlete who reaches 19 this year', async () => {
+    const { athlete, injury } = await athleteWithInjury(thisYear - 19);
     expect(athlete.needsGuardianConsent).toBe(false);
+    expect(athlete.guardianConsentReason).toBeNull();
     expect((await therapist.post('/api/runs').send({ injuryId: injury.id, screening: clear })).status).toBe(201);
   });
 

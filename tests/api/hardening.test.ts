@@ -36,7 +36,7 @@ beforeAll(async () => {
 });
 
 async function newInjury(agent: Agent) {
-  const athlete = (await agent.post('/api/athletes').send({ name: 'Ines Varga', yearOfBirth: 1998, sport: 'Hockey' })).body.athlete;
+  const athlete = (await agent.post('/api/athletes').send({ name: 'Ines Varga', yearOfBirth: 1998, sport: 'Hockey', consentToTreatment: true })).body.athlete;
   return (await agent.post('/api/injuries').send({ athleteId: athlete.id, region: 'anterior-thigh', side: 'left', mechanismKind: 'knee-to-thigh', injuredAt: hoursAgo(20) })).body.injury;
 }
 

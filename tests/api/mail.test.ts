@@ -58,9 +58,10 @@ async function log(runId: string, body: object) {
 }
 
 /** The default acute sequence: 20-minute cold pack, wrap, rest and re-check; completed at 10:00 London time. */
-async function completeAcuteRun(injuryId: string) {
+async function completeAcuteRun(injuryId: string, beforeLogging?: () => Promise<unknown>) {
   const run = (await therapist.post('/api/runs').send({ injuryId, screening: clear })).body.run;
   expect(run.phase).toBe('acute');
+  await beforeLogging?.();
   await log(run.id, entry('step-completed', todayAt('09:52'), { seq: 1, stepIndex: 0, kind: 'cold-pack', plannedSeconds: 1200, actualSeconds: 1200 }));
   await log(run.id, entry('step-completed', todayAt('09:55'), { seq: 2, stepIndex: 1, kind: 'compression-wrap', plannedSeconds: 180, actualSeconds: 180 }));
   await log(run.id, entry('step-completed', todayAt('10:00'), { seq: 3, stepIndex: 2, kind: 'rest-recheck', plannedSeconds: 300, actualSeconds: 300 }));
@@ -116,8 +117,9 @@ describe('home-care plan after a run', () => {
   });
 
   it('an athlete without consent, or without an e-mail address, gets nothing', async () => {
-    const noConsent = await acuteInjury({ consentToTreatment: false });
-    await completeAcuteRun(noConsent.injury.id);
+    // A run needs consent to start, so this consent is withdrawn while the run is under way.
+    const noConsent = await acuteInjury();
+    await completeAcuteRun(noConsent.injury.id, () => therapist.patch(`/api/athletes/${noConsent.injury.athleteId}`).send({ consentToTreatment: false }).expect(200));
     const noAddress = await acuteInjury({ email: null });
     await completeAcuteRun(noAddress.injury.id);
     await settleBackgroundMail();

@@ -20,7 +20,7 @@ beforeAll(async () => {
 });
 
 async function injuryDaysAgo(days: number) {
-  const athlete = (await therapist.post('/api/athletes').send({ name: 'Oona Brisk', yearOfBirth: 1994, sport: 'Netball' })).body.athlete;
+  const athlete = (await therapist.post('/api/athletes').send({ consentToTreatment: true, name: 'Oona Brisk', yearOfBirth: 1994, sport: 'Netball' })).body.athlete;
   return (await therapist.post('/api/injuries').send({ athleteId: athlete.id, region: 'calf', side: 'left', mechanismKind: 'ball', injuredAt: hoursAgo(days * 24) })).body
     .injury as { id: string; nextRecheckAt: string | null; recheckStatus: string };
 }

@@ -20,7 +20,7 @@ beforeAll(async () => {
 });
 
 async function thighInjuryWithHistory() {
-  const athlete = (await therapist.post('/api/athletes').send({ name: 'Sami Okafor', yearOfBirth: 1999, sport: 'Rugby union' })).body.athlete;
+  const athlete = (await therapist.post('/api/athletes').send({ consentToTreatment: true, name: 'Sami Okafor', yearOfBirth: 1999, sport: 'Rugby union' })).body.athlete;
   const injury = (
     await therapist.post('/api/injuries').send({ athleteId: athlete.id, region: 'anterior-thigh', side: 'left', mechanismKind: 'knee-to-thigh', mechanism: 'Knee in a tackle', injuredAt: hoursAgo(50) })
   ).body.injury;

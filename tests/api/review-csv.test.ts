@@ -76,7 +76,7 @@ beforeAll(async () => {
   supervisor = await signedInAgent(app, (await createStaff(clinic.id, 'supervisor', { name: 'Orla Penhale' })).email);
   otherTherapist = await signedInAgent(app, (await createStaff(other.id, 'therapist')).email);
 
-  const athlete = (await therapist.post('/api/athletes').send({ name: trickyName, yearOfBirth: 1997, sport: 'Hockey' })).body.athlete;
+  const athlete = (await therapist.post('/api/athletes').send({ consentToTreatment: true, name: trickyName, yearOfBirth: 1997, sport: 'Hockey' })).body.athlete;
   const injury = (await therapist.post('/api/injuries').send({ athleteId: athlete.id, region: 'calf', side: 'right', mechanismKind: 'ball', injuredAt: hoursAgo(240) })).body.injury;
   injuryId = injury.id;
   await therapist.post(`/api/injuries/${injury.id}/measurements`).send({
@@ -115,7 +115,7 @@ beforeAll(async () => {
   expect((await supervisor.post(`/api/runs/${run.id}/sign-off`).send({ comment: 'ok' })).status).toBe(200);
 
   // A second athlete's run stopped at the screening, to check the filters reach the export.
-  const plain = (await therapist.post('/api/athletes').send({ name: 'Ivo Lind', yearOfBirth: 2001, sport: 'Hockey' })).body.athlete;
+  const plain = (await therapist.post('/api/athletes').send({ consentToTreatment: true, name: 'Ivo Lind', yearOfBirth: 2001, sport: 'Hockey' })).body.athlete;
   const plainInjury = (await therapist.post('/api/injuries').send({ athleteId: plain.id, region: 'calf', side: 'left', mechanismKind: 'ball', injuredAt: hoursAgo(30) })).body.injury;
   plainRunId = (await therapist.post('/api/runs').send({ injuryId: plainInjury.id, screening: { ...clear, redFlags: ['suspected-fracture'] } })).body.run.id;
 });

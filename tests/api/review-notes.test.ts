@@ -27,7 +27,7 @@ beforeAll(async () => {
 
 /** An acute thigh contusion treated to the end of its plan. */
 async function completedAcuteRun(finish = true) {
-  const athlete = (await therapist.post('/api/athletes').send({ name: 'Rhys Calloway', yearOfBirth: 2000, sport: 'Football' })).body.athlete;
+  const athlete = (await therapist.post('/api/athletes').send({ consentToTreatment: true, name: 'Rhys Calloway', yearOfBirth: 2000, sport: 'Football' })).body.athlete;
   const injury = (
     await therapist.post('/api/injuries').send({ athleteId: athlete.id, region: 'anterior-thigh', side: 'right', mechanismKind: 'knee-to-thigh', injuredAt: hoursAgo(20) })
   ).body.injury;

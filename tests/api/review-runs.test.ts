@@ -23,7 +23,7 @@ const dayAgo = (days: number) => DateTime.now().setZone(clinicZone).minus({ days
 type Entry = Record<string, unknown>;
 
 async function newInjury(agent: Agent, athleteName: string, days: number, measure = true) {
-  const athlete = (await agent.post('/api/athletes').send({ name: athleteName, yearOfBirth: 1999, sport: 'Hockey' })).body.athlete;
+  const athlete = (await agent.post('/api/athletes').send({ consentToTreatment: true, name: athleteName, yearOfBirth: 1999, sport: 'Hockey' })).body.athlete;
   const injury = (await agent.post('/api/injuries').send({ athleteId: athlete.id, region: 'calf', side: 'left', mechanismKind: 'ball', injuredAt: hoursAgo(days * 24).toISOString() })).body.injury;
   expect(injury?.id).toBeDefined();
   if (measure) {

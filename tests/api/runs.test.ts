@@ -21,7 +21,7 @@ beforeAll(async () => {
 });
 
 async function injuryDaysAgo(days: number, bruise = true) {
-  const athlete = (await therapist.post('/api/athletes').send({ name: 'Kit Varga', yearOfBirth: 2000, sport: 'Hockey' })).body.athlete;
+  const athlete = (await therapist.post('/api/athletes').send({ consentToTreatment: true, name: 'Kit Varga', yearOfBirth: 2000, sport: 'Hockey' })).body.athlete;
   const injury = (
     await therapist.post('/api/injuries').send({ athleteId: athlete.id, region: 'calf', side: 'right', mechanismKind: 'ball', injuredAt: hoursAgo(days * 24) })
   ).body.injury;

@@ -78,7 +78,7 @@ describe('clinic settings', () => {
 
 describe('settings apply to new runs only', () => {
   async function readyRun() {
-    const athlete = (await therapist.post('/api/athletes').send({ name: 'Noor Halden', yearOfBirth: 1998, sport: 'Hockey' })).body.athlete;
+    const athlete = (await therapist.post('/api/athletes').send({ consentToTreatment: true, name: 'Noor Halden', yearOfBirth: 1998, sport: 'Hockey' })).body.athlete;
     const injury = (
       await therapist.post('/api/injuries').send({ athleteId: athlete.id, region: 'calf', side: 'left', mechanismKind: 'ball', injuredAt: hoursAgo(10 * 24) })
     ).body.injury;

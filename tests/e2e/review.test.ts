@@ -35,7 +35,7 @@ async function fellBackRunWithSubmittedNote(page: Page, athleteName: string) {
     return reply.body;
   };
   const minutesAgo = (m: number) => new Date(Date.now() - m * 60_000).toISOString();
-  const { athlete } = ok(await api<{ athlete: { id: string } }>(page, 'POST', '/api/athletes', { name: athleteName, yearOfBirth: 2001, sport: 'Rugby' }));
+  const { athlete } = ok(await api<{ athlete: { id: string } }>(page, 'POST', '/api/athletes', { name: athleteName, yearOfBirth: 2001, sport: 'Rugby', consentToTreatment: true }));
   const { injury } = ok(
     await api<{ injury: { id: string } }>(page, 'POST', '/api/injuries', {
       athleteId: athlete.id,

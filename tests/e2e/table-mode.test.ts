@@ -18,7 +18,7 @@ async function api<T>(page: Page, method: string, path: string, body?: unknown):
 
 /** A new athlete with a calf contusion injured `days` ago, so each test has its own proliferative injury. */
 async function newInjury(page: Page, name: string, days: number) {
-  const { athlete } = await api<{ athlete: { id: string } }>(page, 'POST', '/api/athletes', { name, yearOfBirth: 1999, sport: 'Hockey' });
+  const { athlete } = await api<{ athlete: { id: string } }>(page, 'POST', '/api/athletes', { name, yearOfBirth: 1999, sport: 'Hockey', consentToTreatment: true });
   const injuredAt = new Date(Date.now() - days * 86_400_000).toISOString();
   const { injury } = await api<{ injury: { id: string } }>(page, 'POST', '/api/injuries', { athleteId: athlete.id, region: 'calf', side: 'left', mechanismKind: 'ball', injuredAt });
   return injury.id;

@@ -3,6 +3,7 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { RequireAuth } from '../../features/auth/components/require-auth';
 import { createRun, endRunEarly, getRun } from '../../features/runs/api/run-queries';
 import { Button } from '../../components/ui/button';
+import { RunRefused } from '../../features/runs/components/run-refused';
 import type { RunView } from '../../../shared/runs/responses';
 import { ApiError } from '../../lib/api-client';
 import { AppShell } from '../layout/app-shell';
@@ -11,9 +12,9 @@ import { AppShell } from '../layout/app-shell';
  * `/runs/new?injuryId=…`: creates the run and goes on to screening. When a run is already under way for the
  * injury, the therapist chooses: resume it, or end it (with a reason, for the log) and start a new one.
  */
-function StartRun({ injuryId }: { injuryId: string }) {
+export function StartRun({ injuryId }: { injuryId: string }) {
   const navigate = useNavigate();
-  const [error, setError] = useState<string | null>(null);
+  const [error, setError] = useState<unknown>(null);
   const [active, setActive] = useState<RunView | null>(null);
   const [reason, setReason] = useState('');
   const [ending, setEnding] = useState(false);
@@ -31,7 +32,7 @@ function StartRun({ injuryId }: { injuryId: string }) {
           else setActive(run);
           return;
         }
-        setError(err instanceof Error ? err.message : 'Could not start the run.');
+        setError(err);
       });
   }, [injuryId, navigate]);
 
@@ -41,16 +42,7 @@ function StartRun({ injuryId }: { injuryId: string }) {
     start();
   }, [start]);
 
-  if (error) {
-    return (
-      <div role="alert" className="flex flex-col gap-3">
-        <p className="text-ember-700">{error}</p>
-        <Link to={`/injuries/${injuryId}`} className="underline">
-          Back to the injury
-        </Link>
-      </div>
-    );
-  }
+  if (error) return <RunRefused error={error} injuryId={injuryId} />;
   if (active) {
     const endAndStart = async () => {
       setEnding(true);
@@ -59,7 +51,7 @@ function StartRun({ injuryId }: { injuryId: string }) {
         setActive(null);
         start();
       } catch (err) {
-        setError(err instanceof Error ? err.message : 'Could not end the run.');
+        setError(err);
       } finally {
         setEnding(false);
       }

@@ -8,8 +8,8 @@ import { useUpdateAthlete } from '../api/update-athlete';
 const when = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
 
 /**
- * A parent's or guardian's consent, recorded with their name, who took it and when. Runs for an athlete under
- * 18 (by year of birth) cannot start without it; for anyone else it can still be recorded when in doubt.
+ * A parent's or guardian's consent, recorded with their name, who took it and when. Runs for an athlete who is
+ * or may be under 18 (by year of birth, erring safe) cannot start without it; for anyone else it can still be recorded when in doubt.
  */
 export function GuardianConsentPanel({ athlete }: { athlete: AthleteView }) {
   const [editing, setEditing] = useState(false);
@@ -41,7 +41,7 @@ export function GuardianConsentPanel({ athlete }: { athlete: AthleteView }) {
         </p>
       ) : (
         <Notice kind="caution" title="Needed before any run">
-          {athlete.name} is under 18 (born {athlete.yearOfBirth}). Record the consent of a parent or guardian before starting a run.
+          {athlete.guardianConsentReason ?? `${athlete.name} is under 18 (born ${athlete.yearOfBirth}).`} Record the consent of a parent or guardian before starting a run.
         </Notice>
       )}
       {update.isError ? (

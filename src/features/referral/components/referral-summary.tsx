@@ -4,6 +4,7 @@ import { ArrowLeft, OctagonAlert, Printer } from 'lucide-react';
 import type { ReferralSummary } from '../../../../shared/clinic/referral';
 import { ApiError } from '../../../lib/api-client';
 import { useReferral } from '../api/get-referral';
+import { CautionLine } from '../../../components/ui/caution-line';
 import './referral-print.css';
 
 const phaseWords = { acute: 'Acute', proliferative: 'Proliferative', remodelling: 'Remodelling' } as const;
@@ -44,7 +45,7 @@ function Pair({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
-function ReferralSheet({ referral }: { referral: ReferralSummary }) {
+export function ReferralSheet({ referral }: { referral: ReferralSummary }) {
   const [note, setNote] = useState('');
   const noteId = useId();
   const { athlete, injury, clinic } = referral;
@@ -216,6 +217,7 @@ function ReferralSheet({ referral }: { referral: ReferralSummary }) {
             A sports massage therapist&rsquo;s record, not a diagnosis. Values graded from published sources are named with them; thresholds marked as the clinic&rsquo;s are its own
             settings.
           </p>
+          <CautionLine className="col-span-2" />
         </footer>
       </article>
     </div>

@@ -19,6 +19,7 @@ import { CountdownRing } from './countdown-ring';
 import { ReasonSheet } from './reason-sheet';
 import { SwellingButton } from './swelling-button';
 import { useSwellingConfirm } from '../hooks/use-swelling-confirm';
+import { CautionLine } from '../../../components/ui/caution-line';
 
 const phaseWord = { acute: 'Acute', proliferative: 'Proliferative', remodelling: 'Remodelling' } as const;
 
@@ -342,6 +343,7 @@ export function TableModeScreen({ detail, onSessionExpired }: { detail: RunDetai
       ) : null}
       {error ? <p role="alert" className="mt-4 text-xl text-red-300">{error}</p> : null}
       {actor ? <RunInProgress actor={actor} detail={detail} player={player} sender={sender} /> : <p className="mt-10 text-2xl text-slate-300">Loading the run…</p>}
+      <CautionLine tone="dark" className="mt-auto pt-4 text-base" />
     </div>
   );
 }
