@@ -26,6 +26,10 @@ function toPlanPad(pad: ClinicalPadSize | null): PadSize | null {
   return { minLengthCm: pad.length.minCm, maxLengthCm: pad.length.maxCm, minWidthCm: pad.width.minCm, maxWidthCm: pad.width.maxCm };
 }
 
+function runInjuryLabel(injury: Pick<Injury, 'region' | 'side'>): string {
+  return `${injury.region.replace(/-/g, ' ')}, ${sideWord[injury.side]}`;
+}
+
 export async function toRunView(run: Run): Promise<RunView> {
   const [athlete, injury, therapist] = await Promise.all([Athlete.findByPk(run.athleteId), Injury.findByPk(run.injuryId), User.findByPk(run.therapistId)]);
   const outcome = run.screening ? screeningOutcome(run.screening) : null;
@@ -34,7 +38,7 @@ export async function toRunView(run: Run): Promise<RunView> {
     injuryId: run.injuryId,
     athleteId: run.athleteId,
     athleteName: athlete?.name ?? '',
-    injuryLabel: injury ? `${injury.region.replace(/-/g, ' ')}, ${sideWord[injury.side]}` : '',
+    injuryLabel: injury ? runInjuryLabel(injury) : '',
     therapistId: run.therapistId,
     therapistName: therapist?.name ?? '',
     phase: run.phase,
@@ -296,24 +300,30 @@ export async function listRunsInProgress(actor: SessionUser, injuryId?: string):
     limit: 50,
   });
   if (!runs.length) return [];
-  const entries = await RunLogEntry.findAll({
-    where: { clinicId: actor.clinicId, runId: { [Op.in]: runs.map((r) => r.id) }, type: { [Op.in]: ['step-completed', 'step-skipped'] } },
-    attributes: ['runId', 'type', 'stepIndex', 'at'],
-  });
-  return Promise.all(
-    runs.map(async (run) => {
-      const view = await toRunView(run);
-      const progress = runProgress(run.plan, entries.filter((e) => e.runId === run.id), run.startedAt);
-      return {
-        runId: run.id,
-        injuryId: run.injuryId,
-        athleteName: view.athleteName,
-        injuryLabel: view.injuryLabel,
-        therapistName: view.therapistName,
-        status: run.status,
-        ...progress,
-        lastActivityAt: run.lastActivityAt.toISOString(),
-      };
+  // Polled by every open Today screen: one query per table for all the runs, not three per run.
+  const ids = (rows: Run[], key: 'athleteId' | 'injuryId' | 'therapistId') => [...new Set(rows.map((r) => r[key]))];
+  const [entries, athletes, injuries, therapists] = await Promise.all([
+    RunLogEntry.findAll({
+      where: { clinicId: actor.clinicId, runId: { [Op.in]: runs.map((r) => r.id) }, type: { [Op.in]: ['step-completed', 'step-skipped'] } },
+      attributes: ['runId', 'type', 'stepIndex', 'at'],
     }),
-  );
+    Athlete.findAll({ where: { id: { [Op.in]: ids(runs, 'athleteId') } }, attributes: ['id', 'name'] }),
+    Injury.findAll({ where: { id: { [Op.in]: ids(runs, 'injuryId') } }, attributes: ['id', 'region', 'side'] }),
+    User.findAll({ where: { id: { [Op.in]: ids(runs, 'therapistId') } }, attributes: ['id', 'name'] }),
+  ]);
+  const byId = <T extends { id: string }>(rows: T[]) => new Map(rows.map((row) => [row.id, row]));
+  const [athleteOf, injuryOf, therapistOf] = [byId(athletes), byId(injuries), byId(therapists)];
+  return runs.map((run) => {
+    const injury = injuryOf.get(run.injuryId);
+    return {
+      runId: run.id,
+      injuryId: run.injuryId,
+      athleteName: athleteOf.get(run.athleteId)?.name ?? '',
+      injuryLabel: injury ? runInjuryLabel(injury) : '',
+      therapistName: therapistOf.get(run.therapistId)?.name ?? '',
+      status: run.status,
+      ...runProgress(run.plan, entries.filter((e) => e.runId === run.id), run.startedAt),
+      lastActivityAt: run.lastActivityAt.toISOString(),
+    };
+  });
 }

@@ -65,7 +65,7 @@ describe('text that PostgreSQL cannot store is refused at the edge, naming the f
     const res = await therapist.post('/api/athletes').send({ name: `Ines ${LONE}`, yearOfBirth: 1998, sport: 'Hockey' });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toEqual(['name']);
-    expect((await therapist.get('/api/athletes?q=Varga')).body.total ?? (await therapist.get('/api/athletes?q=Varga')).body.items?.length).toEqual(before.total ?? before.items?.length);
+    expect((await therapist.get('/api/athletes?q=Varga')).body.total).toBe(before.total);
   });
 
   it('a search query with NUL gets 400 naming q', async () => {
